@@ -1,0 +1,3 @@
+export * from './errors.js';
+export * from './physics/index.js';
+export * from './search/index.js';

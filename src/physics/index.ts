@@ -1,0 +1,12 @@
+export * from './constants.js';
+export * from './types.js';
+export * from './couplings.js';
+export { buildSystem, systemFromHamiltonian, SYSTEM_DEFAULTS, type SystemOptions } from './hamiltonian.js';
+export * from './excitons.js';
+export type { Start, LinearModel } from './models/common.js';
+export { drudeSpectrum } from './models/bath.js';
+export { forsterRate } from './models/forster.js';
+export { redfieldTensor } from './models/redfield.js';
+export * from './observables.js';
+export * from './dynamics.js';
+export * from './transport.js';
