@@ -24,10 +24,10 @@ export interface TransportOptions {
   /** redfield: Drude-Lorentz cutoff gamma_c, cm^-1. Default 100. */
   cutoff: number;
   /**
-   * redfield: secular cutoff, cm^-1: tensor elements coupling coherences whose frequencies differ by less
-   * than this are kept. Default 0.531 cm^-1 (0.1 rad/ps, the value QuTiP's brmesolve uses).
+   * redfield: secular approximation threshold as a fraction of the smallest non-zero exciton spacing: tensor
+   * elements coupling coherences whose Bohr frequencies differ by less are kept. Default 0.1 (QuTiP 4.7's rule).
    */
-  secularCutoff: number;
+  secularFraction: number;
   /** Initial excitation. Default: uniform over the donor (non-trap) sites. */
   start: Start;
 }
@@ -38,7 +38,7 @@ export const TRANSPORT_DEFAULTS: TransportOptions = {
   dephasing: 10,
   temperature: 300,
   cutoff: 100,
-  secularCutoff: 0.1 / (2 * Math.PI * 0.0299792458),
+  secularFraction: 0.1,
   start: { kind: 'donors' },
 };
 

@@ -22,7 +22,7 @@ describe('secular Redfield population transfer', () => {
     const sys = systemFromHamiltonian(ADOLPHS_RENGER_2006, { traps: [], reorganization: 35 });
     const ex = excitons(sys);
     const T = 77;
-    const R = redfieldTensor(ex, sys.reorganization, { temperature: T, cutoff: 106, secularCutoff: 0.5 });
+    const R = redfieldTensor(ex, sys.reorganization, { temperature: T, cutoff: 106, secularFraction: 0.1 });
     const n = ex.n;
     const rate = (from: number, to: number) => {
       const i = R.targets[from * n + from].indexOf(to * n + to);

@@ -13,10 +13,11 @@ export interface RedfieldOptions {
   /** Drude-Lorentz cutoff gamma_c, cm^-1. Reorganization energies come from the system, per site. */
   cutoff: number;
   /**
-   * Secular approximation: keep R_abcd only where |w_ab - w_cd| < secularCutoff (cm^-1); population-to-population
-   * and each element's own decay are always kept.
+   * Secular approximation: keep R_abcd only where |w_ab - w_cd| < secularFraction * (smallest non-zero exciton
+   * spacing); population-to-population elements and each element's own decay are always kept. This is the rule
+   * of QuTiP 4.7's bloch_redfield_tensor (sec_cutoff, default 0.1).
    */
-  secularCutoff: number;
+  secularFraction: number;
   trapRate: number | readonly number[];
   start: Start;
 }
@@ -35,11 +36,11 @@ export interface RedfieldTensor {
  *   R_abcd = 1/2 W_acdb [S(w_ca) + S(w_db)] - 1/2 delta_bd T_ac - 1/2 delta_ac T_bd,
  *   W_acdb = sum_m lambda_m c_ma c_mc c_md c_mb,  T_xy = sum_n W_xnny S(w_yn),  w_ij = E_i - E_j.
  */
-export function redfieldTensor(ex: Excitons, reorganization: Float64Array, o: Pick<RedfieldOptions, 'temperature' | 'cutoff' | 'secularCutoff'>): RedfieldTensor {
+export function redfieldTensor(ex: Excitons, reorganization: Float64Array, o: Pick<RedfieldOptions, 'temperature' | 'cutoff' | 'secularFraction'>): RedfieldTensor {
   const { n, energies: E, coefficients: C } = ex;
   const T = requireNumber('temperature', o.temperature, 'positive');
   const gc = requireNumber('bath cutoff', o.cutoff, 'positive');
-  const sec = requireNumber('secular cutoff', o.secularCutoff, 'nonnegative');
+  const sec = requireNumber('secular fraction', o.secularFraction, 'nonnegative') * smallestSpacing(E);
   const S = new Float64Array(n * n); // S(w_ij) in ps^-1 per unit lambda
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) S[i * n + j] = drudeSpectrum(E[i] - E[j], gc, T) * CM_TO_RAD_PER_PS;
   const W4 = (a: number, c: number, d: number, b: number) => {
@@ -89,6 +90,16 @@ export function redfieldTensor(ex: Excitons, reorganization: Float64Array, o: Pi
     }
   }
   return { n, targets, values };
+}
+
+/** Smallest non-zero |E_a - E_b| of a sorted spectrum (0 for a single level). */
+export function smallestSpacing(E: Float64Array): number {
+  let best = Infinity;
+  for (let a = 1; a < E.length; a++) {
+    const d = E[a] - E[a - 1];
+    if (d > 0 && d < best) best = d;
+  }
+  return Number.isFinite(best) ? best : 0;
 }
 
 function tensorTerm(R: RedfieldTensor): Term {

@@ -1,0 +1,53 @@
+import { Command, CommanderError } from 'commander';
+import { createRequire } from 'node:module';
+import { InputError, LumenfoldError, ModelError, NumericalError } from '../errors.js';
+import { simulateCommand } from './commands/simulate.js';
+import type { CliContext } from './context.js';
+
+const require = createRequire(import.meta.url);
+export const VERSION: string = (require('../../package.json') as { version: string }).version;
+
+/** Exit codes: 0 success, 1 internal failure, 2 bad input (file, option, model without an answer), 3 numerical failure. */
+export function exitCodeFor(err: unknown): number {
+  if (err instanceof InputError || err instanceof ModelError) return 2;
+  if (err instanceof NumericalError) return 3;
+  return 1;
+}
+
+export function buildProgram(ctx: CliContext): Command {
+  const program = new Command('lumenfold')
+    .description('design artificial light-harvesting dye arrays and score them with an exciton transport model')
+    .version(VERSION)
+    .option('--debug', 'show stack traces of errors')
+    .showHelpAfterError(false)
+    .exitOverride()
+    .configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr });
+  for (const make of [simulateCommand]) program.addCommand(make(ctx).exitOverride().configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr }));
+  return program;
+}
+
+/** Run the command line; returns the exit code. Never calls process.exit. */
+export async function main(argv: string[], ctx?: Partial<CliContext>): Promise<number> {
+  const debug = argv.includes('--debug');
+  const c: CliContext = {
+    stdout: (t) => process.stdout.write(t),
+    stderr: (t) => process.stderr.write(t),
+    isTTY: Boolean(process.stderr.isTTY),
+    debug,
+    ...ctx,
+  };
+  try {
+    await buildProgram(c).parseAsync(argv);
+    return 0;
+  } catch (err) {
+    if (err instanceof CommanderError) {
+      if (err.code === 'commander.helpDisplayed' || err.code === 'commander.version' || err.code === 'commander.help') return 0;
+      return 2; // commander already printed its one-line message
+    }
+    const msg = err instanceof Error ? err.message : String(err);
+    if (err instanceof LumenfoldError) c.stderr(`lumenfold: ${msg}\n`);
+    else c.stderr(`lumenfold: internal error: ${msg}\n`);
+    if (c.debug && err instanceof Error && err.stack) c.stderr(err.stack + '\n');
+    return exitCodeFor(err);
+  }
+}
