@@ -1,0 +1,11 @@
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+
+export const ROOT = fileURLToPath(new URL('../../', import.meta.url));
+export const BIN = `${ROOT}bin/lumenfold.js`;
+
+/** Run the built binary (npm test builds first). */
+export function runCli(args: string[], opts: { cwd?: string; input?: string; env?: Record<string, string> } = {}) {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd: opts.cwd ?? ROOT, encoding: 'utf8', input: opts.input, env: { ...process.env, ...opts.env }, timeout: 300_000 });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
