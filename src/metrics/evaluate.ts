@@ -1,0 +1,93 @@
+import { InputError, ModelError } from '../errors.js';
+import { buildSystem, type SystemOptions } from '../physics/hamiltonian.js';
+import { evaluateTransport, MODELS, transportOptions, type TransportOptions } from '../physics/transport.js';
+import type { ExcitonSystem, Site } from '../physics/types.js';
+import { applyDisorder, type DisorderEnsemble } from './disorder.js';
+import { mean, quantile } from './stats.js';
+import { uphillEfficiency, uphillMaxStep } from './uphill.js';
+
+/** The metrics of a candidate, in snake_case as they appear in files. */
+export const METRIC_NAMES = [
+  'efficiency', 'transfer_time', 'robust_mean', 'robust_p10', 'robust_share', 'uphill_efficiency', 'uphill_max_step', 'coherence_gain',
+] as const;
+export type MetricName = (typeof METRIC_NAMES)[number];
+
+/** A candidate array: its dyes and which of them are traps (0-based). */
+export interface Design {
+  readonly sites: readonly Site[];
+  readonly traps: readonly number[];
+}
+
+export interface MetricSettings {
+  transport: Partial<TransportOptions>;
+  /** How couplings are built (traps come from the design). */
+  system: Partial<Omit<SystemOptions, 'traps'>>;
+  /** Loss rate of every site, ps^-1; when absent each dye's lifetime sets its own. */
+  lossRate?: number;
+  /** The shared disorder draws (common random numbers); needed for the robust_* metrics. */
+  disorder?: DisorderEnsemble;
+  /** robust_share counts samples with efficiency at or above this. */
+  shareThreshold: number;
+  /** uphill_efficiency: trap this far above the donors' lowest exciton (cm^-1); uphill_max_step searches [0, limit]. */
+  uphill: { step: number; threshold: number; limit: number };
+  /** Temperature of the forster baseline of coherence_gain when the chosen model has none (hsr), K. */
+  baselineTemperature: number;
+}
+
+export interface MetricValues {
+  readonly values: Partial<Record<MetricName, number>>;
+  /** Disorder samples that could not be scored (dyes pushed onto each other), counted, never NaN. */
+  readonly skippedSamples: number;
+  readonly warnings: readonly string[];
+}
+
+/** Build the excitonic system of a design under the settings. */
+export function designSystem(d: Design, s: MetricSettings, sites: readonly Site[] = d.sites): ExcitonSystem {
+  const sys = buildSystem(sites, { ...s.system, traps: d.traps });
+  if (s.lossRate === undefined) return sys;
+  return { ...sys, lossRates: new Float64Array(sys.n).fill(s.lossRate) };
+}
+
+/** Compute the named metrics of one design; only what is asked is computed. */
+export function computeMetrics(d: Design, s: MetricSettings, wanted: readonly MetricName[]): MetricValues {
+  const t = transportOptions(s.transport);
+  const values: Partial<Record<MetricName, number>> = {};
+  const warnings: string[] = [];
+  let skipped = 0;
+  const want = new Set(wanted);
+  const sys = designSystem(d, s);
+  if (want.has('efficiency') || want.has('transfer_time') || want.has('coherence_gain')) {
+    const r = evaluateTransport(sys, t);
+    values.efficiency = r.efficiency;
+    values.transfer_time = r.transferTime;
+    if (want.has('coherence_gain')) {
+      const base = evaluateTransport(sys, { ...t, model: 'forster', temperature: MODELS[t.model].finiteTemperature ? t.temperature : s.baselineTemperature });
+      values.coherence_gain = r.efficiency - base.efficiency;
+    }
+  }
+  if (want.has('robust_mean') || want.has('robust_p10') || want.has('robust_share')) {
+    if (!s.disorder) throw new InputError('robust metrics need a disorder ensemble');
+    const etas: number[] = [];
+    for (let k = 0; k < s.disorder.draws.length; k++) {
+      try {
+        etas.push(evaluateTransport(designSystem(d, s, applyDisorder(d.sites, s.disorder, k)), t).efficiency);
+      } catch (e) {
+        if (!(e instanceof InputError)) throw e;
+        skipped++;
+      }
+    }
+    if (skipped) warnings.push(`${skipped} of ${s.disorder.draws.length} disorder samples put two dyes on top of each other and were left out`);
+    if (etas.length === 0) throw new ModelError('no disorder sample could be scored: the jitter pushes dyes onto each other every time');
+    values.robust_mean = mean(etas);
+    values.robust_p10 = quantile(etas, 0.1);
+    values.robust_share = etas.filter((e) => e >= s.shareThreshold).length / etas.length;
+  }
+  if (want.has('uphill_efficiency') || want.has('uphill_max_step')) {
+    if (!MODELS[t.model].finiteTemperature) {
+      throw new InputError(`uphill metrics need a finite-temperature model (redfield or forster); ${t.model} treats uphill and downhill steps alike`);
+    }
+    if (want.has('uphill_efficiency')) values.uphill_efficiency = uphillEfficiency(sys, t, s.uphill.step);
+    if (want.has('uphill_max_step')) values.uphill_max_step = uphillMaxStep(sys, t, s.uphill.threshold, s.uphill.limit);
+  }
+  return { values, skippedSamples: skipped, warnings };
+}
