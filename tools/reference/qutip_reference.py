@@ -36,6 +36,7 @@ FMO_CM = [[200, -87.7, 5.5, -5.9, 6.7, -13.7, -9.9],
           [6.7, 0.7, -2.2, -70.7, 270, 81.1, -1.3],
           [-13.7, 11.8, -9.6, -17.0, 81.1, 420, 39.7],
           [-9.9, 4.3, 6.0, -63.3, -1.3, 39.7, 230]]
+FMO_CM = [[float(x) for x in row] for row in FMO_CM]
 FMO_EIGENVALUES_CM = [-30.01, 81.70, 155.09, 244.80, 259.67, 367.56, 471.20]  # given in the brief
 FMO_SOURCE = ("Adolphs & Renger, Biophys. J. 91, 2778 (2006); matrix as tabulated in QuTiP's HEOM "
               "FMO example (qutip-notebooks examples/heom/heom-2-fmo-example), citing Ishizaki & "
@@ -238,7 +239,9 @@ def secular_record(case, h, a_ops, c_ops, spectrum):
                  "frequencies nearly match. Here sink and ground are placed so that dw_min equals the "
                  "smallest nonzero exciton spacing."),
         "source_lines": ("qutip 4.7.1: qutip/cy/br_tensor.pyx line 40 (condition), qutip/cy/brtools.pyx "
-                         "lines 549-560 (skew_and_dwmin), qutip/bloch_redfield.py lines 180-183 (call)"),
+                         "lines 549-560 (skew_and_dwmin, called at br_tensor.pyx line 170), qutip/bloch_redfield.py "
+                         "lines 180-183 (brmesolve's call); Python-function spectra are classed as "
+                         "n_func at qutip/rhs_generate.py lines 253-255"),
         "sec_cutoff": SEC_CUTOFF,
         "dw_min_rad_ps": dw_min, "dw_min_cm": dw_min / CM_TO_RAD_PS,
         "threshold_cm": SEC_CUTOFF * dw_min / CM_TO_RAD_PS,
