@@ -24,6 +24,8 @@ export interface MetricSettings {
   system: Partial<Omit<SystemOptions, 'traps'>>;
   /** Loss rate of every site, ps^-1; when absent each dye's lifetime sets its own. */
   lossRate?: number;
+  /** Reorganization energy of every site's bath, cm^-1; when absent each dye's own. */
+  reorganization?: number;
   /** The shared disorder draws (common random numbers); needed for the robust_* metrics. */
   disorder?: DisorderEnsemble;
   /** robust_share counts samples with efficiency at or above this. */
@@ -44,8 +46,11 @@ export interface MetricValues {
 /** Build the excitonic system of a design under the settings. */
 export function designSystem(d: Design, s: MetricSettings, sites: readonly Site[] = d.sites): ExcitonSystem {
   const sys = buildSystem(sites, { ...s.system, traps: d.traps });
-  if (s.lossRate === undefined) return sys;
-  return { ...sys, lossRates: new Float64Array(sys.n).fill(s.lossRate) };
+  return {
+    ...sys,
+    lossRates: s.lossRate === undefined ? sys.lossRates : new Float64Array(sys.n).fill(s.lossRate),
+    reorganization: s.reorganization === undefined ? sys.reorganization : new Float64Array(sys.n).fill(s.reorganization),
+  };
 }
 
 /** Compute the named metrics of one design; only what is asked is computed. */

@@ -1,0 +1,113 @@
+import type { ConstraintSet } from '../config/constraints-types.js';
+import type { Objective } from '../config/objective-types.js';
+import { InputError, LumenfoldError } from '../errors.js';
+import { computeMetrics, METRIC_NAMES, type MetricName, type MetricSettings } from '../metrics/evaluate.js';
+import { MODELS, transportOptions } from '../physics/transport.js';
+import { paretoVector, scoreMetricNames, weightedScore, type ScoreRule } from '../metrics/score.js';
+import { minimize, minimizeMulti } from '../search/minimize.js';
+import type { Progress } from '../search/core/types.js';
+import { designSpace, type DesignPoint, type DesignSpace } from '../space/design-space.js';
+import type { Feasibility } from '../space/feasibility.js';
+import { naiveDesign } from './naive.js';
+import { metricSettingsFrom, scoreRuleFrom } from './settings.js';
+
+/** One scored candidate. */
+export interface ScoredDesign {
+  design: DesignPoint;
+  metrics: Partial<Record<MetricName, number>>;
+  /** Weighted-sum score (higher is better), or undefined for a Pareto objective. */
+  score?: number;
+  /** Objective vector (minimized) of a Pareto objective. */
+  objectives?: number[];
+  feasibility: Feasibility;
+  feasible: boolean;
+  warnings: string[];
+}
+
+export interface SearchSettings {
+  optimizer: string;
+  budget: number;
+  batch: number;
+  seed: number;
+  top: number;
+  onProgress?: (p: Progress) => void;
+  /** Called after every evaluated candidate, in order. */
+  onEvaluation?: (e: { index: number; score: number | number[]; feasible: boolean; metrics: Partial<Record<MetricName, number>>; error?: string }) => void;
+}
+
+export interface OptimizationOutcome {
+  optimizer: string;
+  choice?: string;
+  evaluations: number;
+  failedEvaluations: number;
+  ranked: ScoredDesign[];
+  naive: ScoredDesign;
+  history: { evaluations: number; best: number }[];
+  hypervolume?: number;
+  seconds: number;
+}
+
+/** Metrics reported for every design: the score's own plus efficiency and transfer time. */
+export function reportedMetrics(rule: ScoreRule, settings: MetricSettings): MetricName[] {
+  const set = new Set<MetricName>(['efficiency', 'transfer_time', ...scoreMetricNames(rule)]);
+  if (!MODELS[transportOptions(settings.transport).model].finiteTemperature) set.delete('uphill_efficiency');
+  return METRIC_NAMES.filter((m) => set.has(m));
+}
+
+/** Score one decoded design under an objective's rule and settings. */
+export function scoreDesign(ds: DesignSpace, d: DesignPoint, rule: ScoreRule, settings: MetricSettings, metrics: readonly MetricName[]): ScoredDesign {
+  const feas = ds.feasibility(d);
+  const feasible = feas.spacing >= 0 && feas.sharedAnchors === 0 && feas.step >= 0 && feas.span >= 0 && feas.trapOffset >= 0;
+  const m = computeMetrics({ sites: d.sites, traps: d.traps }, settings, metrics);
+  const out: ScoredDesign = { design: d, metrics: m.values, feasibility: feas, feasible, warnings: [...m.warnings] };
+  if (rule.kind === 'weighted_sum') out.score = weightedScore(rule, m.values);
+  else out.objectives = paretoVector(rule, m.values);
+  return out;
+}
+
+/** Run one optimization of a constraint set under an objective: pure computation, no files. */
+export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSettings): Promise<OptimizationOutcome> {
+  const t0 = Date.now();
+  const ds = designSpace(c);
+  const settings = metricSettingsFrom(o, ds.maxSites);
+  const rule = scoreRuleFrom(o);
+  const metrics = reportedMetrics(rule, settings);
+  const searchMetrics = scoreMetricNames(rule);
+  let index = 0;
+  let failed = 0;
+  const evaluate = (p: Record<string, unknown>): number | number[] => {
+    const d = ds.decode(p);
+    try {
+      const m = computeMetrics({ sites: d.sites, traps: d.traps }, settings, searchMetrics);
+      const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, m.values) : paretoVector(rule, m.values);
+      s.onEvaluation?.({ index: index++, score, feasible: true, metrics: m.values });
+      return score;
+    } catch (e) {
+      if (!(e instanceof LumenfoldError) || (e instanceof InputError && /finite-temperature/.test(e.message))) throw e;
+      failed++;
+      s.onEvaluation?.({ index: index++, score: NaN, feasible: false, metrics: {}, error: e.message });
+      return rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN);
+    }
+  };
+  const common = { optimizer: s.optimizer, budget: s.budget, batch: s.batch, seed: s.seed, onProgress: s.onProgress };
+  let points: Record<string, unknown>[];
+  let history: { evaluations: number; best: number }[] = [];
+  let optimizer: string, choice: string | undefined, evaluations: number, hypervolume: number | undefined;
+  if (rule.kind === 'weighted_sum') {
+    const r = await minimize((p) => evaluate(p) as number, ds.space, common);
+    points = r.archive.filter((f) => f.feasible).map((f) => f.point);
+    if (points.length === 0) points = r.archive.map((f) => f.point);
+    history = r.history.map((h) => ({ evaluations: h.evaluations, best: -h.best }));
+    ({ optimizer, evaluations } = r);
+    choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
+  } else {
+    const r = await minimizeMulti((p) => evaluate(p) as number[], ds.space, common);
+    points = r.front.map((f) => f.point);
+    ({ optimizer, evaluations, hypervolume } = r);
+    choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
+  }
+  const ranked = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => scoreDesign(ds, ds.decode(p), rule, settings, metrics));
+  if (rule.kind === 'weighted_sum') ranked.sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score! - a.score!);
+  const naive = scoreDesign(ds, naiveDesign(ds), rule, settings, metrics);
+  return { optimizer, choice, evaluations, failedEvaluations: failed, ranked: ranked.slice(0, s.top), naive, history, hypervolume, seconds: (Date.now() - t0) / 1000 };
+}

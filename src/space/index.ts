@@ -1,0 +1,4 @@
+export * from './anchors.js';
+export * from './design-space.js';
+export * from './feasibility.js';
+export * from './geometry.js';
