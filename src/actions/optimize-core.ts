@@ -1,6 +1,5 @@
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
-import { InputError, LumenfoldError } from '../errors.js';
 import { computeMetrics, METRIC_NAMES, type MetricName, type MetricSettings } from '../metrics/evaluate.js';
 import { MODELS, transportOptions } from '../physics/transport.js';
 import { paretoVector, scoreMetricNames, weightedScore, type ScoreRule } from '../metrics/score.js';
@@ -8,7 +7,9 @@ import { minimize, minimizeMulti } from '../search/minimize.js';
 import type { Progress } from '../search/core/types.js';
 import { designSpace, type DesignPoint, type DesignSpace } from '../space/design-space.js';
 import type { Feasibility } from '../space/feasibility.js';
+import { makeEvaluator, type Evaluation } from './evaluator.js';
 import { naiveDesign } from './naive.js';
+import { EvaluationPool } from './pool.js';
 import { metricSettingsFrom, scoreRuleFrom } from './settings.js';
 
 /** One scored candidate. */
@@ -30,6 +31,8 @@ export interface SearchSettings {
   batch: number;
   seed: number;
   top: number;
+  /** Worker threads for evaluation; results are identical for any number. */
+  workers: number;
   onProgress?: (p: Progress) => void;
   /** Called after every evaluated candidate, in order. */
   onEvaluation?: (e: { index: number; score: number | number[]; feasible: boolean; metrics: Partial<Record<MetricName, number>>; error?: string }) => void;
@@ -72,39 +75,36 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   const settings = metricSettingsFrom(o, ds.maxSites);
   const rule = scoreRuleFrom(o);
   const metrics = reportedMetrics(rule, settings);
-  const searchMetrics = scoreMetricNames(rule);
+  const evaluateOne = makeEvaluator(c, o);
+  const pool = s.workers > 1 ? new EvaluationPool(s.workers, c, o) : undefined;
   let index = 0;
   let failed = 0;
-  const evaluate = (p: Record<string, unknown>): number | number[] => {
-    const d = ds.decode(p);
-    try {
-      const m = computeMetrics({ sites: d.sites, traps: d.traps }, settings, searchMetrics);
-      const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, m.values) : paretoVector(rule, m.values);
-      s.onEvaluation?.({ index: index++, score, feasible: true, metrics: m.values });
-      return score;
-    } catch (e) {
-      if (!(e instanceof LumenfoldError) || (e instanceof InputError && /finite-temperature/.test(e.message))) throw e;
-      failed++;
-      s.onEvaluation?.({ index: index++, score: NaN, feasible: false, metrics: {}, error: e.message });
-      return rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN);
-    }
+  const record = (e: Evaluation) => {
+    if (e.error) failed++;
+    s.onEvaluation?.({ index: index++, score: e.score, feasible: !e.error, metrics: e.metrics, error: e.error });
+    return e.score;
   };
+  const evaluateBatch = async (ps: Record<string, unknown>[]) => (pool ? await pool.evaluate(ps) : ps.map(evaluateOne)).map(record);
   const common = { optimizer: s.optimizer, budget: s.budget, batch: s.batch, seed: s.seed, onProgress: s.onProgress };
   let points: Record<string, unknown>[];
   let history: { evaluations: number; best: number }[] = [];
   let optimizer: string, choice: string | undefined, evaluations: number, hypervolume: number | undefined;
+  try {
   if (rule.kind === 'weighted_sum') {
-    const r = await minimize((p) => evaluate(p) as number, ds.space, common);
+    const r = await minimize(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[]> });
     points = r.archive.filter((f) => f.feasible).map((f) => f.point);
     if (points.length === 0) points = r.archive.map((f) => f.point);
     history = r.history.map((h) => ({ evaluations: h.evaluations, best: -h.best }));
     ({ optimizer, evaluations } = r);
     choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
   } else {
-    const r = await minimizeMulti((p) => evaluate(p) as number[], ds.space, common);
+    const r = await minimizeMulti(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[][]> });
     points = r.front.map((f) => f.point);
     ({ optimizer, evaluations, hypervolume } = r);
     choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
+  }
+  } finally {
+    await pool?.close();
   }
   const ranked = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => scoreDesign(ds, ds.decode(p), rule, settings, metrics));
   if (rule.kind === 'weighted_sum') ranked.sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score! - a.score!);
