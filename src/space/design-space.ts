@@ -4,9 +4,30 @@ import { InputError } from '../errors.js';
 import { degToRad } from '../physics/constants.js';
 import type { Site, Vec3 } from '../physics/types.js';
 import { SearchSpace } from '../search/space/space.js';
-import { helixAnchors, listAnchors, type Anchor } from './anchors.js';
+import { scaffoldAnchors } from '../config/anchors.js';
 import { coneDirection, distance, normalize } from './geometry.js';
 import { feasibility, type Feasibility } from './feasibility.js';
+
+/** An anchor point of a scaffold (nm) with its local frame on a helical lattice. */
+export interface Anchor {
+  readonly index: number;
+  readonly position: Vec3;
+  readonly helix?: number;
+  readonly step?: number;
+  readonly frame?: { readonly axial: Vec3; readonly radial: Vec3; readonly tangent: Vec3 };
+}
+
+/** Anchors of an anchor scaffold, as vectors. */
+function anchorsOf(c: ConstraintSet): Anchor[] | undefined {
+  if (!isAnchorScaffold(c.scaffold)) return undefined;
+  return scaffoldAnchors(c.scaffold).map((a) => ({
+    index: a.index,
+    position: v3(a.position),
+    helix: a.helix,
+    step: a.step,
+    frame: a.frame ? { axial: v3(a.frame.axial), radial: v3(a.frame.radial), tangent: v3(a.frame.tangent) } : undefined,
+  }));
+}
 
 /** A decoded candidate: the dyes as the physics sees them plus what a chemist needs to build it. */
 export interface DesignPoint {
@@ -53,7 +74,7 @@ export function designSpace(c: ConstraintSet): DesignSpace {
   const N = c.dyes.count.max;
   const traps = c.dyes.traps;
   const sc = c.scaffold;
-  const anchors = sc.kind === 'helix_lattice' ? helixAnchors(sc) : sc.kind === 'anchors' ? listAnchors(sc.anchors) : undefined;
+  const anchors = anchorsOf(c);
   const s: any = new SearchSpace<Point>();
   if (c.dyes.count.min < c.dyes.count.max) s.integer('count', c.dyes.count.min, c.dyes.count.max);
   const fixed = (i: number) => c.fixed.find((f) => f.site === i);

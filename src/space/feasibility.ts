@@ -1,6 +1,6 @@
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Site } from '../physics/types.js';
-import type { Anchor } from './anchors.js';
+import type { Anchor } from './design-space.js';
 import { distance } from './geometry.js';
 
 /**

@@ -1,4 +1,3 @@
-export * from './anchors.js';
 export * from './design-space.js';
 export * from './feasibility.js';
 export * from './geometry.js';
