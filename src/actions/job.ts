@@ -18,11 +18,16 @@ export interface OptimizationJob {
   search: { optimizer: string; budget: number; batch: number; seed: number; top: number };
 }
 
+/** SHA-256 of a text, hex. */
+export function sha256Hex(text: string): string {
+  return createHash('sha256').update(text).digest('hex');
+}
+
 /** SHA-256 of canonical JSON (keys sorted), hex. */
 export function hashOf(value: unknown): string {
   const canon = (v: unknown): unknown => Array.isArray(v) ? v.map(canon)
     : v && typeof v === 'object' ? Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, canon((v as Record<string, unknown>)[k])])) : v;
-  return createHash('sha256').update(JSON.stringify(canon(value))).digest('hex');
+  return sha256Hex(JSON.stringify(canon(value)));
 }
 
 /** Search settings: command-line values over the objective's optimizer block over defaults. */

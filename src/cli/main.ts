@@ -1,11 +1,14 @@
 import { Command, CommanderError } from 'commander';
-import { createRequire } from 'node:module';
 import { InputError, LumenfoldError, ModelError, NumericalError } from '../errors.js';
+import { checkCommand } from './commands/check.js';
+import { exportCommand } from './commands/export.js';
+import { optimizeCommand } from './commands/optimize.js';
+import { rankCommand, scoreCommand } from './commands/score.js';
 import { simulateCommand } from './commands/simulate.js';
+import { sweepCommand } from './commands/sweep.js';
 import type { CliContext } from './context.js';
 
-const require = createRequire(import.meta.url);
-export const VERSION: string = (require('../../package.json') as { version: string }).version;
+import { VERSION } from '../actions/version.js';
 
 /** Exit codes: 0 success, 1 internal failure, 2 bad input (file, option, model without an answer), 3 numerical failure. */
 export function exitCodeFor(err: unknown): number {
@@ -22,7 +25,7 @@ export function buildProgram(ctx: CliContext): Command {
     .showHelpAfterError(false)
     .exitOverride()
     .configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr });
-  for (const make of [simulateCommand]) program.addCommand(make(ctx).exitOverride().configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr }));
+  for (const make of [optimizeCommand, scoreCommand, rankCommand, sweepCommand, exportCommand, checkCommand, simulateCommand]) program.addCommand(make(ctx).exitOverride().configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr }));
   return program;
 }
 

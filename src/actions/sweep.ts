@@ -1,0 +1,84 @@
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { basename, join, resolve } from 'node:path';
+import { loadConfigFile } from '../config/load.js';
+import { expandSweep } from '../config/sweep.js';
+import { acquireLock } from '../output/run-lock.js';
+import { writeFileAtomic } from '../output/atomic.js';
+import { formatCsv } from '../output/csv.js';
+import { checkSatisfiable } from './load-configs.js';
+import { makeJob, runJob, searchSettings } from './job.js';
+import { writeRunFiles } from './optimize.js';
+import { toRecord } from './records.js';
+
+export interface SweepRequest {
+  sweepFile: string;
+  out?: string;
+  seed?: number;
+  budget?: number;
+  workers: number;
+  onPoint?: (i: number, total: number, label: string, status: 'skipped' | 'running' | 'done') => void;
+}
+
+export interface SweepPointResult {
+  format: 'lumenfold.sweep-point/1';
+  index: number;
+  id: string;
+  label: string;
+  point: Record<string, unknown>;
+  best_score: number | null;
+  naive_score: number | null;
+  metrics: Record<string, number>;
+  evaluations: number;
+  seconds: number;
+}
+
+/**
+ * Run one optimization per sweep point into <out>/<id>/, then a summary table. A point whose result.json
+ * exists (same id: same configs and search settings) is skipped, so a stopped sweep resumes where it left off.
+ */
+export async function sweep(req: SweepRequest): Promise<{ folder: string; points: (SweepPointResult & { status: 'skipped' | 'done' })[] }> {
+  const sw = loadConfigFile(req.sweepFile, 'sweep');
+  const jobs = expandSweep(sw, req.sweepFile);
+  const folder = resolve(req.out ?? join('designs', 'sweeps', sw.name ?? basename(req.sweepFile).replace(/\.(ya?ml|json)$/, '')));
+  mkdirSync(folder, { recursive: true });
+  const lock = acquireLock(join(folder, '.lock'));
+  try {
+    for (const j of jobs) checkSatisfiable(j.constraints, j.objective, { constraints: `${req.sweepFile} [${j.label}] constraints`, objective: `${req.sweepFile} [${j.label}] objective` });
+    const points: (SweepPointResult & { status: 'skipped' | 'done' })[] = [];
+    for (const j of jobs) {
+      const job = makeJob(j.label, j.constraints, j.objective, searchSettings(j.objective, { seed: req.seed, budget: req.budget }));
+      const dir = join(folder, `${String(j.index).padStart(3, '0')}-${job.id}`);
+      const resultFile = join(dir, 'result.json');
+      if (existsSync(resultFile)) {
+        req.onPoint?.(j.index, jobs.length, j.label, 'skipped');
+        points.push({ ...(JSON.parse(readFileSync(resultFile, 'utf8')) as SweepPointResult), status: 'skipped' });
+        continue;
+      }
+      req.onPoint?.(j.index, jobs.length, j.label, 'running');
+      mkdirSync(dir, { recursive: true });
+      const history: string[] = [];
+      const started = new Date().toISOString();
+      const outcome = await runJob(job, { onEvaluation: (e) => history.push(JSON.stringify({ i: e.index, score: e.score, ...e.metrics })) }, req.workers);
+      writeRunFiles(dir, job, outcome, history, { started, workers: req.workers });
+      const best = outcome.ranked[0];
+      const result: SweepPointResult = {
+        format: 'lumenfold.sweep-point/1', index: j.index, id: job.id, label: j.label, point: j.point,
+        best_score: best?.score ?? null, naive_score: outcome.naive.score ?? null,
+        metrics: best ? (toRecord(best, j.label, {}).metrics as Record<string, number>) : {},
+        evaluations: outcome.evaluations, seconds: outcome.seconds,
+      };
+      writeFileAtomic(resultFile, JSON.stringify(result, null, 2) + '\n');
+      req.onPoint?.(j.index, jobs.length, j.label, 'done');
+      points.push({ ...result, status: 'done' });
+    }
+    const metricNames = [...new Set(points.flatMap((p) => Object.keys(p.metrics)))];
+    const axes = [...new Set(points.flatMap((p) => Object.keys(p.point)))];
+    writeFileAtomic(join(folder, 'summary.csv'), formatCsv(
+      ['index', 'id', ...axes, 'best_score', 'naive_score', ...metricNames],
+      points.map((p) => [p.index, p.id, ...axes.map((a) => String(p.point[a])), p.best_score ?? '', p.naive_score ?? '', ...metricNames.map((m) => p.metrics[m])]),
+    ));
+    return { folder, points };
+  } finally {
+    lock.release();
+  }
+}

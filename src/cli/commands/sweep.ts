@@ -1,0 +1,28 @@
+import { Command } from 'commander';
+import { sweep } from '../../actions/sweep.js';
+import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../common.js';
+import type { CliContext } from '../context.js';
+import { parseIndex } from '../parse.js';
+
+export function sweepCommand(ctx: CliContext): Command {
+  const cmd = new Command('sweep')
+    .description('one optimization per point of a sweep file, with a summary table; finished points are skipped when run again')
+    .argument('<sweep-file>', 'sweep file (lumenfold.sweep/1)')
+    .option('--budget <n>', 'candidate designs per point (default: each objective\'s)');
+  addCommonOptions(cmd, { out: 'sweep folder (default designs/sweeps/<name>)' });
+  return cmd.action(async (file: string, f: CommonFlags & { budget?: string }) => {
+    const r = await sweep({
+      sweepFile: file,
+      out: f.out,
+      seed: parseSeed(f.seed),
+      budget: f.budget === undefined ? undefined : parseIndex('--budget', f.budget),
+      workers: parseWorkers(f.workers),
+      onPoint: (i, n, label, status) => { if (!f.quiet) ctx.stderr(`sweep point ${i + 1}/${n} ${label}: ${status}\n`); },
+    });
+    if (f.json) ctx.stdout(JSON.stringify(r, null, 2) + '\n');
+    else {
+      ctx.stdout(`sweep folder ${r.folder}\n`);
+      for (const p of r.points) ctx.stdout(`${p.label}\tbest ${p.best_score?.toFixed(4) ?? 'n/a'}\tefficiency ${p.metrics.efficiency?.toFixed(4) ?? 'n/a'}\t${p.status}\n`);
+    }
+  });
+}
