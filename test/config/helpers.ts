@@ -52,3 +52,16 @@ score:
 model:
   kind: redfield
 `;
+
+type Doc = Record<string, unknown>;
+const isDoc = (v: unknown): v is Doc => v !== null && typeof v === 'object' && !Array.isArray(v);
+
+/** A copy of base with override merged in: mappings key by key, everything else replaced; undefined deletes. */
+export function merged(base: Doc, override: Doc): Doc {
+  const out: Doc = { ...base };
+  for (const [key, value] of Object.entries(override)) {
+    if (value === undefined) delete out[key];
+    else out[key] = isDoc(value) && isDoc(base[key]) ? merged(base[key] as Doc, value) : value;
+  }
+  return out;
+}
