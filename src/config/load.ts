@@ -23,6 +23,8 @@ export interface Inspection<K extends ConfigKind = ConfigKind> {
   kind?: K;
   value?: ConfigByKind[K];
   issues: ConfigIssue[];
+  /** Places of the document's keys in the file (line and column), when read from text. */
+  positions?: Map<string, Position>;
 }
 
 export interface ValidateOptions {
@@ -40,7 +42,8 @@ function roots(): Record<string, unknown>[] {
   return schemaRoots;
 }
 
-function asIssues(problems: DocumentProblem[], file: string, positions: Map<string, Position>): ConfigIssue[] {
+/** Issues at JSON pointers of a file, with their line and column when known. */
+export function asIssues(problems: readonly DocumentProblem[], file: string, positions: Map<string, Position> = new Map()): ConfigIssue[] {
   return problems.map((p) => {
     const pos = positionOf(positions, p.path);
     return { file, path: p.path, message: p.message, ...(pos ? { line: pos.line, column: pos.column } : {}) };
@@ -77,7 +80,8 @@ export function validateConfigValue<K extends ConfigKind>(value: unknown, kind: 
   } else if (actual === 'palette') {
     issues.push(...asIssues(paletteProblems((value as Palette).dyes, '/dyes'), file, positions));
   }
-  return issues.length > 0 ? { kind: actual, issues } : { kind: actual, value: value as ConfigByKind[K], issues };
+  if (issues.length > 0) return { kind: actual, issues, positions };
+  return { kind: actual, value: value as ConfigByKind[K], issues, positions };
 }
 
 function inspectSource<K extends ConfigKind>(source: SourceText, kind: K | undefined, baseDir: string): Inspection<K> {
