@@ -1,5 +1,5 @@
 import type { ErrorObject } from 'ajv';
-import { pointerKeys, pointerToken, type ConfigIssue } from './config-error.js';
+import { pointerKeys, pointerToken, sortIssues, type ConfigIssue } from './config-error.js';
 import type { Position } from './parse-tree.js';
 
 type Schema = Record<string, unknown>;
@@ -179,5 +179,5 @@ export function ajvIssues(
     const pos = positionOf(positions, path);
     issues.push({ file, path, message, ...(pos ? { line: pos.line, column: pos.column } : {}) });
   }
-  return issues.sort((a, b) => (a.line ?? 0) - (b.line ?? 0) || a.path.localeCompare(b.path));
+  return sortIssues(issues);
 }

@@ -13,6 +13,11 @@ export interface ConfigIssue {
   column?: number;
 }
 
+/** Issues in reading order: by line, then by path. */
+export function sortIssues(issues: ConfigIssue[]): ConfigIssue[] {
+  return issues.sort((a, b) => (a.line ?? 0) - (b.line ?? 0) || a.path.localeCompare(b.path));
+}
+
 /** Renders one issue as `file:line:column: /path: message`. */
 export function formatIssue(issue: ConfigIssue): string {
   const where = issue.line === undefined ? issue.file : `${issue.file}:${issue.line}:${issue.column ?? 1}`;

@@ -1,6 +1,6 @@
 import { dirname, isAbsolute, join } from 'node:path';
 import { ajvIssues, positionOf } from './ajv-issues.js';
-import { ConfigError, type ConfigIssue } from './config-error.js';
+import { ConfigError, sortIssues, type ConfigIssue } from './config-error.js';
 import type { ConstraintSet, Palette } from './constraints-types.js';
 import { constraintProblems, objectiveProblems, paletteProblems, type DocumentProblem } from './document-checks.js';
 import { checkFormat } from './format-check.js';
@@ -66,8 +66,9 @@ export function validateConfigValue<K extends ConfigKind>(value: unknown, kind: 
   const issues: ConfigIssue[] = [];
   if (actual === 'constraints') {
     const doc = value as ConstraintSet & { palette_file?: string; dyes: { count: unknown } };
-    issues.push(...asIssues(constraintProblems(doc), file, positions));
+    issues.push(...sortIssues(asIssues(constraintProblems(doc), file, positions)));
     if (doc.palette_file !== undefined) {
+      // The palette file's own issues follow, under its own name.
       const path = isAbsolute(doc.palette_file) ? doc.palette_file : join(options.baseDir, doc.palette_file);
       const palette = inspectConfigFile(path, 'palette');
       issues.push(...palette.issues);
@@ -76,7 +77,7 @@ export function validateConfigValue<K extends ConfigKind>(value: unknown, kind: 
     }
     if (typeof doc.dyes.count === 'number') doc.dyes.count = { min: doc.dyes.count, max: doc.dyes.count };
   } else if (actual === 'objective') {
-    issues.push(...asIssues(objectiveProblems(value as Objective), file, positions));
+    issues.push(...sortIssues(asIssues(objectiveProblems(value as Objective), file, positions)));
   } else if (actual === 'palette') {
     issues.push(...asIssues(paletteProblems((value as Palette).dyes, '/dyes'), file, positions));
   }

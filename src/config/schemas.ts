@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { Ajv2020, type ValidateFunction } from 'ajv/dist/2020.js';
 
 /** The kinds of config file lumenfold reads, each with its own format name and schema. */
@@ -30,7 +31,7 @@ const TOP_SCHEMA: Readonly<Record<ConfigKind, keyof typeof SCHEMA_FILES>> = {
 
 /** Absolute path of a shipped schema file (this module sits two levels below the package root). */
 export function schemaPath(name: keyof typeof SCHEMA_FILES): string {
-  return new URL(`../../${SCHEMA_FILES[name]}`, import.meta.url).pathname;
+  return fileURLToPath(new URL(`../../${SCHEMA_FILES[name]}`, import.meta.url));
 }
 
 /** Reads a shipped schema file as JSON. */

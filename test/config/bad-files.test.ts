@@ -150,6 +150,17 @@ describe('bad config files give an InputError naming the file, the JSON pointer 
     expect(issues[0].message).toMatch(/infinite-temperature model: it treats uphill and downhill steps alike/);
   });
 
+  it('what a schema cannot state: reversed ranges, zero vectors, repeated names and pins', () => {
+    const text = MINIMAL_CONSTRAINTS.replace('name: DyeB', 'name: DyeA')
+      .replace('count: 3', 'count: {min: 4, max: 2}')
+      .replace('size: {x: 4, y: 4, z: 4}', 'size: {x: 4, y: 4, z: 4}\n  dipole: {kind: cone, axis: {x: 0, y: 0, z: 0}, half_angle: 20}');
+    const extra = 'fixed:\n  - {site: 0, direction: {x: 0, y: 0, z: 0}}\n  - {site: 0, dye: DyeA}\nenergetics:\n  rules:\n    - {sites: all, range: {min: 19000, max: 18000, like: DyeA}}\n  trap_offset: {min: 5, max: -5}\n';
+    const issues = issuesOf('semantic.yaml', `${text}${extra}`);
+    expect(issues.map((i) => i.path)).toEqual([
+      '/palette/1/name', '/dyes/count', '/scaffold/dipole/axis', '/fixed/0/direction', '/fixed/1/site', '/energetics/rules/0/range', '/energetics/trap_offset',
+    ]);
+  });
+
   it('a palette file that is missing or broken is reported under its own name', () => {
     const missing = write('no-palette.yaml', MINIMAL_CONSTRAINTS.replace(/palette:\n(  - .*\n)+/, 'palette_file: nowhere.yaml\n'));
     const err = configError(() => loadConfigFile(missing, 'constraints'));

@@ -1,12 +1,13 @@
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
 import { ConfigError } from '../../src/config/config-error.js';
 import { InputError } from '../../src/errors.js';
 
 /** Path of a file in the repository. */
-export const repoFile = (path: string) => new URL(`../../${path}`, import.meta.url).pathname;
+export const repoFile = (path: string) => fileURLToPath(new URL(`../../${path}`, import.meta.url));
 
 /** A fresh folder for test files. */
 export function scratch(): (name: string, content: string | Uint8Array) => string {
