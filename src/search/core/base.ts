@@ -48,6 +48,7 @@ export abstract class BaseOptimizer implements Optimizer {
   private front = new ParetoArchive();
   private reference: number[] | undefined;
   private probe: Float64Array[] = [];
+  private hvCache = { version: -1, value: 0 };
 
   constructor(
     readonly name: string,
@@ -126,6 +127,7 @@ export abstract class BaseOptimizer implements Optimizer {
     if (e.violation === 0 && e.f.every(Number.isFinite)) this.probe.push(e.f);
     if (this.probe.length === REFERENCE_PROBE) {
       this.reference = Array.from({ length: this.m }, (_, k) => Math.max(...this.probe.map((f) => f[k])));
+      this.hvCache.version = -1;
     }
   }
 
@@ -150,8 +152,11 @@ export abstract class BaseOptimizer implements Optimizer {
       const b = this.best.best();
       if (b) p.best = b.f[0];
     } else if (this.reference) {
-      const feasible = this.front.all().filter((e) => e.violation === 0);
-      p.hypervolume = hypervolume(feasible.map((e) => e.f), this.reference);
+      if (this.hvCache.version !== this.front.version) {
+        const feasible = this.front.all().filter((e) => e.violation === 0);
+        this.hvCache = { version: this.front.version, value: hypervolume(feasible.map((e) => e.f), this.reference) };
+      }
+      p.hypervolume = this.hvCache.value;
       p.reference = [...this.reference];
     }
     return p;
@@ -184,6 +189,7 @@ export abstract class BaseOptimizer implements Optimizer {
     this.m = d.m as number;
     this.outstanding.clear();
     this.requeue = (d.pending as Pending[]).map((p) => ({ id: p.id, x: f64(p.x, 'pending x'), tag: p.tag }));
+    this.hvCache.version = -1;
     if (this.multi) this.front.load(d.archive);
     else this.best.load(d.archive);
     this.reference = d.reference ? [...(d.reference as number[])] : undefined;

@@ -15,6 +15,9 @@ function sameScores(a: Evaluated, b: Evaluated): boolean {
 }
 
 export class ParetoArchive extends EvaluatedList {
+  /** Increases whenever the archive changes (lets callers cache the hypervolume). */
+  version = 0;
+
   constructor(readonly size = 500) {
     super();
   }
@@ -24,6 +27,7 @@ export class ParetoArchive extends EvaluatedList {
     for (const a of this.items) if (dominates(a, e) || sameScores(a, e)) return false;
     this.items = this.items.filter((a) => !dominates(e, a));
     this.items.push(e);
+    this.version++;
     return true;
   }
 
@@ -34,6 +38,7 @@ export class ParetoArchive extends EvaluatedList {
       let worst = 0;
       for (let i = 1; i < d.length; i++) if (d[i] < d[worst]) worst = i;
       this.items.splice(worst, 1);
+      this.version++;
     }
   }
 }
