@@ -1,5 +1,5 @@
-import { readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { mkdirSync, readFileSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
 import pino from 'pino';
 import type { Progress } from '../search/core/types.js';
 import { createRunFolder, writeFileAtomic } from '../output/atomic.js';
@@ -81,7 +81,11 @@ export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
 /** Write manifest, history, ranked designs, ranking CSV and the best design's XYZ and PDB into a run folder. */
 export function writeRunFiles(folder: string, job: OptimizationJob, outcome: OptimizationOutcome, history: string[], meta: { files?: { constraints: string; objective: string }; started: string; workers: number }): string[] {
   const written: string[] = [];
-  const put = (rel: string, text: string) => { writeFileAtomic(join(folder, rel), text); written.push(rel); };
+  const put = (rel: string, text: string) => {
+    mkdirSync(dirname(join(folder, rel)), { recursive: true });
+    writeFileAtomic(join(folder, rel), text);
+    written.push(rel);
+  };
   const records = outcome.ranked.map((s, i) => toRecord(s, `${job.label}-rank${String(i + 1).padStart(2, '0')}`, { runId: job.id, rank: i + 1, seed: job.search.seed, toolVersion: VERSION }));
   const manifest = {
     format: 'lumenfold.run/1',
