@@ -1,12 +1,13 @@
 /** The JSON Schema of lumenfold.design/1 (designs/design.schema.json), compiled once, with readable errors. */
 import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { Ajv2020, type ErrorObject, type ValidateFunction } from 'ajv/dist/2020.js';
 import { pointerToken, type DesignIssue } from './design-error.js';
 
 export const DESIGN_FORMAT = 'lumenfold.design/1';
 
 /** Absolute path of the shipped schema (this module sits two folders below the package root). */
-export const DESIGN_SCHEMA_PATH = new URL('../../designs/design.schema.json', import.meta.url).pathname;
+export const DESIGN_SCHEMA_PATH = fileURLToPath(new URL('../../designs/design.schema.json', import.meta.url));
 
 /** The schema document. */
 export function designSchema(): Record<string, unknown> {

@@ -1,6 +1,7 @@
 import { mkdtempSync, readdirSync, readFileSync, rmSync, truncateSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { afterAll, describe, expect, it } from 'vitest';
 import { InputError } from '../../src/errors.js';
@@ -15,7 +16,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 const schemaText = readFileSync(new URL('../../designs/design.schema.json', import.meta.url), 'utf8');
 const EXAMPLES = ['demo-helix-7.design.json', 'demo-wire-4.design.json'];
-const example = (f: string) => new URL(`../../designs/examples/${f}`, import.meta.url).pathname;
+const example = (f: string) => fileURLToPath(new URL(`../../designs/examples/${f}`, import.meta.url));
 
 describe('designs/design.schema.json', () => {
   // A fresh ajv in strict mode, no lumenfold code in between (ajv 8 documents strict mode: unknown keywords,
