@@ -1,5 +1,5 @@
 /**
- * Fixed columns of the wwPDB Atomic Coordinate Entry Format Version 3.3 (wwPDB, 2008, revised 2012):
+ * Fixed columns of the wwPDB Atomic Coordinate Entry Format Version 3.3 (document v3.30, wwPDB):
  * every record is one 80-column line, columns numbered from 1, the record name in columns 1-6. The
  * tables below copy the column ranges of the records lumenfold writes from that document's record
  * format descriptions (Title section: TITLE; Heterogen section: HETNAM; Coordinate section: HETATM, TER;

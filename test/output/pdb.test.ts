@@ -7,7 +7,7 @@ import { residueNames } from '../../src/output/residue-names.js';
 import { randomRecord, smallRecord } from './records.js';
 
 // Column positions below are typed from the wwPDB "Atomic Coordinate Entry Format Version 3.3"
-// (wwPDB 2008, v3.30 of July 2011), record format tables, columns numbered from 1 and inclusive:
+// (document v3.30, wwPDB), record format tables, columns numbered from 1 and inclusive:
 //   HETATM (Coordinate section): 1-6 "HETATM", 7-11 serial, 13-16 atom name, 17 altLoc, 18-20 resName,
 //     22 chainID, 23-26 resSeq, 27 iCode, 31-38 x Real(8.3), 39-46 y, 47-54 z (Å), 55-60 occupancy
 //     Real(6.2), 61-66 tempFactor Real(6.2), 77-78 element (right-justified), 79-80 charge.
