@@ -1,4 +1,7 @@
 import { createHash } from 'node:crypto';
+import { InputError } from '../errors.js';
+import { optimizerNames } from '../search/registry.js';
+import '../search/builtins.js';
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import type { MetricName } from '../metrics/evaluate.js';
@@ -42,7 +45,14 @@ export function searchSettings(o: Objective, over: Partial<OptimizationJob['sear
   };
 }
 
+/** Throw an InputError (before anything is written) when the optimizer name is not registered. */
+export function checkOptimizerName(name: string): void {
+  const known = ['auto', ...optimizerNames().filter((n) => n !== 'auto')];
+  if (!known.includes(name)) throw new InputError(`unknown optimizer "${name}"; available: ${known.join(', ')}`);
+}
+
 export function makeJob(label: string, constraints: ConstraintSet, objective: Objective, search: OptimizationJob['search']): OptimizationJob {
+  checkOptimizerName(search.optimizer);
   const id = hashOf({ constraints, objective, search }).slice(0, 16);
   return { format: 'lumenfold.job/1', id, label, constraints, objective, search };
 }

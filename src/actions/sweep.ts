@@ -40,13 +40,15 @@ export async function sweep(req: SweepRequest): Promise<{ folder: string; points
   const sw = loadConfigFile(req.sweepFile, 'sweep');
   const jobs = expandSweep(sw, req.sweepFile);
   const folder = resolve(req.out ?? join('designs', 'sweeps', sw.name ?? basename(req.sweepFile).replace(/\.(ya?ml|json)$/, '')));
+  // everything that can be refused is checked before the folder is touched
+  for (const j of jobs) checkSatisfiable(j.constraints, j.objective, { constraints: `${req.sweepFile} [${j.label}] constraints`, objective: `${req.sweepFile} [${j.label}] objective` });
+  const made = jobs.map((j) => makeJob(j.label, j.constraints, j.objective, searchSettings(j.objective, { seed: req.seed, budget: req.budget })));
   mkdirSync(folder, { recursive: true });
   const lock = acquireLock(join(folder, '.lock'));
   try {
-    for (const j of jobs) checkSatisfiable(j.constraints, j.objective, { constraints: `${req.sweepFile} [${j.label}] constraints`, objective: `${req.sweepFile} [${j.label}] objective` });
     const points: (SweepPointResult & { status: 'skipped' | 'done' })[] = [];
     for (const j of jobs) {
-      const job = makeJob(j.label, j.constraints, j.objective, searchSettings(j.objective, { seed: req.seed, budget: req.budget }));
+      const job = made[j.index];
       const dir = join(folder, `${String(j.index).padStart(3, '0')}-${job.id}`);
       const resultFile = join(dir, 'result.json');
       if (existsSync(resultFile)) {

@@ -18,7 +18,7 @@ export function addCommonOptions(cmd: Command, opts: { out: string; force?: bool
   cmd.option('--out <path>', opts.out);
   if (opts.force) cmd.option('--force', 'overwrite an existing output');
   cmd.option('--json', 'print the result as JSON on stdout');
-  cmd.option('--quiet', 'no progress or summary on stderr');
+  cmd.option('--quiet', 'no progress bar or notes on stderr');
   return cmd;
 }
 
