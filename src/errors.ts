@@ -32,3 +32,10 @@ export class NumericalError extends LumenfoldError {
     super(message, code);
   }
 }
+
+/** A run stopped on request (Ctrl-C or SIGTERM) after writing a checkpoint; the CLI exits 130. */
+export class InterruptedError extends LumenfoldError {
+  constructor(message: string) {
+    super(message, 'interrupted');
+  }
+}

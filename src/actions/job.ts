@@ -6,7 +6,7 @@ import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import type { MetricName } from '../metrics/evaluate.js';
 import type { Progress } from '../search/core/types.js';
-import { optimizeDesign, type OptimizationOutcome } from './optimize-core.js';
+import { optimizeDesign, type OptimizationOutcome, type ResumePoint } from './optimize-core.js';
 
 /**
  * A self-contained, serializable optimization job: configs in, results out. A sweep is a list of these, so a
@@ -58,10 +58,11 @@ export function makeJob(label: string, constraints: ConstraintSet, objective: Ob
 }
 
 export interface JobHooks {
+  shouldStop?: () => boolean;
   onProgress?: (p: Progress) => void;
   onEvaluation?: (e: { index: number; score: number | number[]; feasible: boolean; metrics: Partial<Record<MetricName, number>>; error?: string }) => void;
 }
 
-export function runJob(job: OptimizationJob, hooks: JobHooks = {}, workers = 1): Promise<OptimizationOutcome> {
-  return optimizeDesign(job.constraints, job.objective, { ...job.search, ...hooks, workers });
+export function runJob(job: OptimizationJob, hooks: JobHooks = {}, workers = 1, resume?: ResumePoint): Promise<OptimizationOutcome> {
+  return optimizeDesign(job.constraints, job.objective, { ...job.search, ...hooks, workers, resume });
 }

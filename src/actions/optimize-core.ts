@@ -5,6 +5,7 @@ import { MODELS, transportOptions } from '../physics/transport.js';
 import { paretoVector, scoreMetricNames, weightedScore, type ScoreRule } from '../metrics/score.js';
 import { minimize, minimizeMulti } from '../search/minimize.js';
 import type { Progress } from '../search/core/types.js';
+import type { RunState } from '../search/run.js';
 import { designSpace, type DesignPoint, type DesignSpace } from '../space/design-space.js';
 import type { Feasibility } from '../space/feasibility.js';
 import { makeEvaluator, type Evaluation } from './evaluator.js';
@@ -34,11 +35,27 @@ export interface SearchSettings {
   /** Worker threads for evaluation; results are identical for any number. */
   workers: number;
   onProgress?: (p: Progress) => void;
+  /** Continue a stopped run from its checkpoint. */
+  resume?: ResumePoint;
+  /** Polled after every batch; true stops the run (the batch in flight is finished first). */
+  shouldStop?: () => boolean;
   /** Called after every evaluated candidate, in order. */
   onEvaluation?: (e: { index: number; score: number | number[]; feasible: boolean; metrics: Partial<Record<MetricName, number>>; error?: string }) => void;
 }
 
+/** Where a stopped run left off: the search state and the counters kept outside it. */
+export interface ResumePoint {
+  state: RunState;
+  /** Candidates scored so far (the index of the next history line). */
+  scored: number;
+  failed: number;
+  convergence: { evaluations: number; best: number }[];
+}
+
 export interface OptimizationOutcome {
+  /** True when shouldStop ended the run before its budget; `resumePoint` continues it. */
+  stopped: boolean;
+  resumePoint: ResumePoint;
   optimizer: string;
   choice?: string;
   evaluations: number;
@@ -77,30 +94,48 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   const metrics = reportedMetrics(rule, settings);
   const evaluateOne = makeEvaluator(c, o);
   const pool = s.workers > 1 ? new EvaluationPool(s.workers, c, o) : undefined;
-  let index = 0;
-  let failed = 0;
+  let index = s.resume?.scored ?? 0;
+  let failed = s.resume?.failed ?? 0;
   const record = (e: Evaluation) => {
     if (e.error) failed++;
     s.onEvaluation?.({ index: index++, score: e.score, feasible: !e.error, metrics: e.metrics, error: e.error });
     return e.score;
   };
-  const evaluateBatch = async (ps: Record<string, unknown>[]) => (pool ? await pool.evaluate(ps) : ps.map(evaluateOne)).map(record);
-  const common = { optimizer: s.optimizer, budget: s.budget, batch: s.batch, seed: s.seed, onProgress: s.onProgress };
+  // yield to the event loop once per batch so that signals (stop requests) and timers are seen
+  const yieldToLoop = () => new Promise<void>((r) => setImmediate(r));
+  const evaluateBatch = async (ps: Record<string, unknown>[]) => {
+    const results = pool ? await pool.evaluate(ps) : ps.map(evaluateOne);
+    if (!pool) await yieldToLoop();
+    return results.map(record);
+  };
+  const common = {
+    optimizer: s.resume ? undefined : s.optimizer,
+    budget: s.budget,
+    batch: s.batch,
+    seed: s.seed,
+    resume: s.resume?.state,
+    onProgress: (p: Progress) => {
+      s.onProgress?.(p);
+      return s.shouldStop?.() ? false : undefined;
+    },
+  };
   let points: Record<string, unknown>[];
   let history: { evaluations: number; best: number }[] = [];
+  let stopped = false;
+  let state: RunState | undefined;
   let optimizer: string, choice: string | undefined, evaluations: number, hypervolume: number | undefined;
   try {
   if (rule.kind === 'weighted_sum') {
     const r = await minimize(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[]> });
     points = r.archive.filter((f) => f.feasible).map((f) => f.point);
     if (points.length === 0) points = r.archive.map((f) => f.point);
-    history = r.history.map((h) => ({ evaluations: h.evaluations, best: -h.best }));
-    ({ optimizer, evaluations } = r);
+    history = [...(s.resume?.convergence ?? []), ...r.history.map((h) => ({ evaluations: h.evaluations, best: -h.best }))];
+    ({ optimizer, evaluations, stopped, state } = r);
     choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
   } else {
     const r = await minimizeMulti(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[][]> });
     points = r.front.map((f) => f.point);
-    ({ optimizer, evaluations, hypervolume } = r);
+    ({ optimizer, evaluations, hypervolume, stopped, state } = r);
     choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
   }
   } finally {
@@ -109,5 +144,10 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   const ranked = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => scoreDesign(ds, ds.decode(p), rule, settings, metrics));
   if (rule.kind === 'weighted_sum') ranked.sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score! - a.score!);
   const naive = scoreDesign(ds, naiveDesign(ds), rule, settings, metrics);
-  return { optimizer, choice, evaluations, failedEvaluations: failed, ranked: ranked.slice(0, s.top), naive, history, hypervolume, seconds: (Date.now() - t0) / 1000 };
+  return {
+    stopped,
+    resumePoint: { state: state!, scored: index, failed, convergence: history },
+    optimizer, choice, evaluations, failedEvaluations: failed, ranked: ranked.slice(0, s.top), naive, history, hypervolume,
+    seconds: (Date.now() - t0) / 1000,
+  };
 }

@@ -2,11 +2,14 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import pino from 'pino';
 import type { Progress } from '../search/core/types.js';
-import { createRunFolder, writeFileAtomic } from '../output/atomic.js';
+import { InterruptedError } from '../errors.js';
+import { createRunFolder, LOCK_FILE, writeFileAtomic } from '../output/atomic.js';
+import { acquireLock } from '../output/run-lock.js';
+import { executeJobInFolder, readJob } from './execute.js';
 import { formatDesignFile } from '../output/design-file.js';
 import { exportDesign } from './exports.js';
 import { rankingCsv } from '../output/csv.js';
-import { hashOf, makeJob, sha256Hex, runJob, searchSettings, type OptimizationJob } from './job.js';
+import { hashOf, makeJob, sha256Hex, searchSettings, type OptimizationJob } from './job.js';
 import { loadDesignProblem } from './load-configs.js';
 import type { OptimizationOutcome } from './optimize-core.js';
 import { toRecord } from './records.js';
@@ -24,6 +27,10 @@ export interface OptimizeRequest {
   /** Run folder; default designs/runs/<name>-<job id>. */
   out?: string;
   force: boolean;
+  /** Continue the interrupted run in this folder (its job and seed). */
+  resume?: string;
+  /** Polled after every batch; true stops the run with a checkpoint. */
+  shouldStop?: () => boolean;
   onProgress?: (p: Progress, budget: number) => void;
 }
 
@@ -40,26 +47,39 @@ export interface OptimizeSummary {
   files: string[];
 }
 
-/** Run an optimization and write its run folder. */
+/** Run an optimization (or continue one from its checkpoint) and write its run folder. */
 export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
-  const { constraints, objective, files } = loadDesignProblem(req.constraintsFile, req.objectiveFile);
-  const search = searchSettings(objective, { optimizer: req.optimizer, budget: req.budget, batch: req.batch, seed: req.seed, top: req.top });
-  const name = `${constraints.name ?? 'design'}-${objective.name ?? 'objective'}`;
-  const job = makeJob(name, constraints, objective, search);
-  const folder = resolve(req.out ?? join('designs', 'runs', `${name}-${job.id}`));
-  const run = createRunFolder(folder, { force: req.force });
+  let job: OptimizationJob;
+  let folder: string;
+  let files: { constraints: string; objective: string } | undefined;
+  let lock: { release(): void };
+  if (req.resume) {
+    folder = resolve(req.resume);
+    job = readJob(folder);
+    lock = acquireLock(join(folder, LOCK_FILE));
+  } else {
+    const p = loadDesignProblem(req.constraintsFile, req.objectiveFile);
+    files = p.files;
+    const search = searchSettings(p.objective, { optimizer: req.optimizer, budget: req.budget, batch: req.batch, seed: req.seed, top: req.top });
+    const name = `${p.constraints.name ?? 'design'}-${p.objective.name ?? 'objective'}`;
+    job = makeJob(name, p.constraints, p.objective, search);
+    folder = resolve(req.out ?? join('designs', 'runs', `${name}-${job.id}`));
+    lock = createRunFolder(folder, { force: req.force });
+  }
   try {
-    const log = pino({ base: { job: job.id } }, pino.destination({ dest: join(folder, 'run.log'), sync: true }));
-    log.info({ files, search }, 'run started');
-    const history: string[] = [];
-    const started = new Date().toISOString();
-    const outcome = await runJob(job, {
-      onProgress: (p) => req.onProgress?.(p, search.budget),
-      onEvaluation: (e) => history.push(JSON.stringify({ i: e.index, score: Array.isArray(e.score) ? e.score : Number.isFinite(e.score) ? -e.score : null, ...e.metrics, ...(e.error ? { error: e.error } : {}) })),
-    }, req.workers);
-    log.info({ evaluations: outcome.evaluations, failed: outcome.failedEvaluations, seconds: outcome.seconds }, 'search finished');
-    const written = writeRunFiles(folder, job, outcome, history, { files, started, workers: req.workers });
-    log.info({ written }, 'run written');
+    const log = pino({ base: { job: job.id } }, pino.destination({ dest: join(folder, 'run.log'), sync: true, append: true }));
+    log.info({ files, search: job.search, resume: Boolean(req.resume), workers: req.workers }, req.resume ? 'run resumed' : 'run started');
+    const outcome = await executeJobInFolder(folder, job, {
+      workers: req.workers,
+      resume: Boolean(req.resume),
+      shouldStop: req.shouldStop,
+      onProgress: (p) => req.onProgress?.(p, job.search.budget),
+      files,
+    });
+    log.info({ evaluations: outcome.evaluations, failed: outcome.failedEvaluations, seconds: outcome.seconds, stopped: outcome.stopped }, outcome.stopped ? 'run interrupted, checkpoint written' : 'run finished');
+    if (outcome.stopped) {
+      throw new InterruptedError(`interrupted after ${outcome.evaluations} of ${job.search.budget} designs; the best so far and a checkpoint are in ${folder}; continue with: lumenfold optimize --resume ${folder}`);
+    }
     const best = outcome.ranked[0];
     return {
       format: 'lumenfold.run-summary/1',
@@ -69,14 +89,17 @@ export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
       evaluations: outcome.evaluations,
       failed_evaluations: outcome.failedEvaluations,
       seconds: outcome.seconds,
-      best: best ? { name: `${name}-rank01`, score: best.score, metrics: toRecord(best, name, {}).metrics as Record<string, number> } : undefined,
+      best: best ? { name: `${job.label}-rank01`, score: best.score, metrics: toRecord(best, job.label, {}).metrics as Record<string, number> } : undefined,
       naive_score: outcome.naive.score,
-      files: written,
+      files: RUN_FILES,
     };
   } finally {
-    run.release();
+    lock.release();
   }
 }
+
+/** The files every finished run folder holds. */
+export const RUN_FILES = ['manifest.json', 'history.jsonl', 'designs/', 'ranking.csv', 'best.xyz', 'best.pdb', 'job.json', 'run.log'];
 
 /** Write manifest, history, ranked designs, ranking CSV and the best design's XYZ and PDB into a run folder. */
 export function writeRunFiles(folder: string, job: OptimizationJob, outcome: OptimizationOutcome, history: string[], meta: { files?: { constraints: string; objective: string }; started: string; workers: number }): string[] {

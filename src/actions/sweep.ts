@@ -1,13 +1,14 @@
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { loadConfigFile } from '../config/load.js';
+import { InterruptedError } from '../errors.js';
 import { expandSweep } from '../config/sweep.js';
 import { acquireLock } from '../output/run-lock.js';
 import { writeFileAtomic } from '../output/atomic.js';
 import { formatCsv } from '../output/csv.js';
 import { checkSatisfiable } from './load-configs.js';
-import { makeJob, runJob, searchSettings } from './job.js';
-import { writeRunFiles } from './optimize.js';
+import { makeJob, searchSettings } from './job.js';
+import { CHECKPOINT_FILE, executeJobInFolder } from './execute.js';
 import { toRecord } from './records.js';
 
 export interface SweepRequest {
@@ -16,7 +17,9 @@ export interface SweepRequest {
   seed?: number;
   budget?: number;
   workers: number;
-  onPoint?: (i: number, total: number, label: string, status: 'skipped' | 'running' | 'done') => void;
+  /** Polled after every batch; true stops the sweep with a checkpoint in the current point's folder. */
+  shouldStop?: () => boolean;
+  onPoint?: (i: number, total: number, label: string, status: 'skipped' | 'running' | 'resuming' | 'done') => void;
 }
 
 export interface SweepPointResult {
@@ -56,12 +59,13 @@ export async function sweep(req: SweepRequest): Promise<{ folder: string; points
         points.push({ ...(JSON.parse(readFileSync(resultFile, 'utf8')) as SweepPointResult), status: 'skipped' });
         continue;
       }
-      req.onPoint?.(j.index, jobs.length, j.label, 'running');
+      const resuming = existsSync(join(dir, CHECKPOINT_FILE));
+      req.onPoint?.(j.index, jobs.length, j.label, resuming ? 'resuming' : 'running');
       mkdirSync(dir, { recursive: true });
-      const history: string[] = [];
-      const started = new Date().toISOString();
-      const outcome = await runJob(job, { onEvaluation: (e) => history.push(JSON.stringify({ i: e.index, score: e.score, ...e.metrics })) }, req.workers);
-      writeRunFiles(dir, job, outcome, history, { started, workers: req.workers });
+      const outcome = await executeJobInFolder(dir, job, { workers: req.workers, resume: resuming, shouldStop: req.shouldStop });
+      if (outcome.stopped) {
+        throw new InterruptedError(`sweep interrupted at point ${j.index + 1} of ${jobs.length} (${j.label}); a checkpoint is in ${dir}; run the same sweep again to continue`);
+      }
       const best = outcome.ranked[0];
       const result: SweepPointResult = {
         format: 'lumenfold.sweep-point/1', index: j.index, id: job.id, label: j.label, point: j.point,

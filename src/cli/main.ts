@@ -1,5 +1,5 @@
 import { Command, CommanderError } from 'commander';
-import { InputError, LumenfoldError, ModelError, NumericalError } from '../errors.js';
+import { InputError, InterruptedError, LumenfoldError, ModelError, NumericalError } from '../errors.js';
 import { checkCommand } from './commands/check.js';
 import { exportCommand } from './commands/export.js';
 import { optimizeCommand } from './commands/optimize.js';
@@ -10,8 +10,12 @@ import type { CliContext } from './context.js';
 
 import { VERSION } from '../actions/version.js';
 
-/** Exit codes: 0 success, 1 internal failure, 2 bad input (file, option, model without an answer), 3 numerical failure. */
+/**
+ * Exit codes: 0 success, 1 internal failure, 2 bad input (file, option, model without an answer), 3 numerical
+ * failure, 130 interrupted (checkpoint written).
+ */
 export function exitCodeFor(err: unknown): number {
+  if (err instanceof InterruptedError) return 130;
   if (err instanceof InputError || err instanceof ModelError) return 2;
   if (err instanceof NumericalError) return 3;
   return 1;

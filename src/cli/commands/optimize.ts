@@ -4,6 +4,7 @@ import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../
 import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
 import { progressBar } from '../progress.js';
+import { withStopSignals } from '../signals.js';
 
 interface OptimizeFlags extends CommonFlags {
   constraints?: string;
@@ -12,6 +13,7 @@ interface OptimizeFlags extends CommonFlags {
   budget?: string;
   batch?: string;
   top?: string;
+  resume?: string;
 }
 
 export function optimizeCommand(ctx: CliContext): Command {
@@ -22,11 +24,14 @@ export function optimizeCommand(ctx: CliContext): Command {
     .option('--optimizer <name>', 'search method (default: the objective\'s, else automatic choice)')
     .option('--budget <n>', 'number of candidate designs to evaluate')
     .option('--batch <n>', 'candidates asked and evaluated together')
-    .option('--top <n>', 'number of ranked designs to keep', '5');
+    .option('--top <n>', 'number of ranked designs to keep', '5')
+    .option('--resume <run-folder>', 'continue an interrupted run from its checkpoint (same job and seed)');
   addCommonOptions(cmd, { out: 'run folder (default designs/runs/<name>-<id>)', force: true });
   return cmd.action(async (f: OptimizeFlags) => {
     let bar: ReturnType<typeof progressBar> | undefined;
-    const s = await optimize({
+    const s = await withStopSignals(ctx, (shouldStop) => optimize({
+      resume: f.resume,
+      shouldStop,
       constraintsFile: f.constraints,
       objectiveFile: f.objective,
       optimizer: f.optimizer,
@@ -38,8 +43,7 @@ export function optimizeCommand(ctx: CliContext): Command {
       out: f.out,
       force: Boolean(f.force),
       onProgress: (p, budget) => { bar ??= progressBar(ctx, budget, 'optimize', Boolean(f.quiet)); bar.update(p); },
-    });
-    bar?.done();
+    })).finally(() => bar?.done());
     if (f.json) ctx.stdout(JSON.stringify(s, null, 2) + '\n');
     else {
       const m = s.best?.metrics ?? {};

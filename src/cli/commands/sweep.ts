@@ -3,6 +3,7 @@ import { sweep } from '../../actions/sweep.js';
 import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../common.js';
 import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
+import { withStopSignals } from '../signals.js';
 
 export function sweepCommand(ctx: CliContext): Command {
   const cmd = new Command('sweep')
@@ -11,14 +12,15 @@ export function sweepCommand(ctx: CliContext): Command {
     .option('--budget <n>', 'candidate designs per point (default: each objective\'s)');
   addCommonOptions(cmd, { out: 'sweep folder (default designs/sweeps/<name>)' });
   return cmd.action(async (file: string, f: CommonFlags & { budget?: string }) => {
-    const r = await sweep({
+    const r = await withStopSignals(ctx, (shouldStop) => sweep({
+      shouldStop,
       sweepFile: file,
       out: f.out,
       seed: parseSeed(f.seed),
       budget: f.budget === undefined ? undefined : parseIndex('--budget', f.budget),
       workers: parseWorkers(f.workers),
       onPoint: (i, n, label, status) => { if (!f.quiet) ctx.stderr(`sweep point ${i + 1}/${n} ${label}: ${status}\n`); },
-    });
+    }));
     if (f.json) ctx.stdout(JSON.stringify(r, null, 2) + '\n');
     else {
       ctx.stdout(`sweep folder ${r.folder}\n`);
