@@ -10,12 +10,14 @@ export interface CommonFlags {
   json?: boolean;
   quiet?: boolean;
   force?: boolean;
+  allowOutside?: boolean;
 }
 
 export function addCommonOptions(cmd: Command, opts: { out: string; force?: boolean; seed?: boolean; workers?: boolean }): Command {
   if (opts.seed !== false) cmd.option('--seed <n>', 'random seed (the same seed gives the same run)');
   if (opts.workers !== false) cmd.option('--workers <n>', 'worker threads for evaluation (default: 1)');
   cmd.option('--out <path>', opts.out);
+  cmd.option('--allow-outside', 'allow --out to point outside the working folder');
   if (opts.force) cmd.option('--force', 'overwrite an existing output');
   cmd.option('--json', 'print the result as JSON on stdout');
   cmd.option('--quiet', 'no progress bar or notes on stderr');

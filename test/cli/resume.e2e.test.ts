@@ -15,7 +15,7 @@ const ARGS = ['optimize', '--budget', '3000', '--seed', '4', '--quiet'];
  */
 function runAndStop(args: string[], folder: string, delay: number, signal: NodeJS.Signals): Promise<number | null> {
   return new Promise((resolve) => {
-    const child = spawn(process.execPath, [BIN, ...args], { stdio: 'ignore' });
+    const child = spawn(process.execPath, [BIN, ...args], { stdio: 'ignore', cwd: tmpdir() });
     const timer = setInterval(() => {
       if (!existsSync(join(folder, 'run.log'))) return;
       clearInterval(timer);

@@ -15,11 +15,12 @@ export function exportCommand(ctx: CliContext): Command {
     .option('--objective <file>', 'take the coupling settings (dipole model, refractive index) from this objective recipe')
     .option('--out <file>', 'write to this file instead of stdout')
     .option('--force', 'overwrite an existing file')
-    .action((file: string, f: { format: ExportFormat; objective?: string; out?: string; force?: boolean }) => {
+    .option('--allow-outside', 'allow --out to point outside the working folder')
+    .action((file: string, f: { format: ExportFormat; objective?: string; out?: string; force?: boolean; allowOutside?: boolean }) => {
       const rec = readDesignFile(file);
       const system = f.objective ? metricSettingsFrom(loadConfigFile(f.objective, 'objective'), rec.sites.length).system : undefined;
       const text = exportDesign(rec, f.format, system);
       if (!f.out) { ctx.stdout(text); return; }
-      writeFileAtomic(safeOutputPath(f.out, Boolean(f.force)), text);
+      writeFileAtomic(safeOutputPath('--out', f.out, Boolean(f.force), Boolean(f.allowOutside)), text);
     });
 }

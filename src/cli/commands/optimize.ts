@@ -5,6 +5,7 @@ import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
 import { progressBar } from '../progress.js';
 import { withStopSignals } from '../signals.js';
+import { outputPath } from '../paths.js';
 
 interface OptimizeFlags extends CommonFlags {
   constraints?: string;
@@ -40,7 +41,7 @@ export function optimizeCommand(ctx: CliContext): Command {
       top: parseIndex('--top', f.top ?? '5'),
       seed: parseSeed(f.seed),
       workers: parseWorkers(f.workers),
-      out: f.out,
+      out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),
       force: Boolean(f.force),
       onProgress: (p, budget) => { bar ??= progressBar(ctx, budget, 'optimize', Boolean(f.quiet)); bar.update(p); },
     })).finally(() => bar?.done());

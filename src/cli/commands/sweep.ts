@@ -4,6 +4,7 @@ import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../
 import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
 import { withStopSignals } from '../signals.js';
+import { outputPath } from '../paths.js';
 
 export function sweepCommand(ctx: CliContext): Command {
   const cmd = new Command('sweep')
@@ -15,7 +16,7 @@ export function sweepCommand(ctx: CliContext): Command {
     const r = await withStopSignals(ctx, (shouldStop) => sweep({
       shouldStop,
       sweepFile: file,
-      out: f.out,
+      out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),
       seed: parseSeed(f.seed),
       budget: f.budget === undefined ? undefined : parseIndex('--budget', f.budget),
       workers: parseWorkers(f.workers),
