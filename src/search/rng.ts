@@ -5,20 +5,19 @@
  * generators", ACM Trans. Math. Softw. 47(4), 2021; reference code xoshiro128starstar.c).
  * Seeding: the 64-bit seed is expanded by SplitMix64 (Steele, Lea and Flood, "Fast splittable
  * pseudorandom number generators", OOPSLA 2014), as the xoshiro authors recommend.
- * Uniform doubles take 53 random bits from two outputs; Gaussian deviates use Marsaglia's polar
- * form of the Box-Muller transform (Marsaglia and Bray, SIAM Review 6, 1964; Box and Muller,
- * Ann. Math. Stat. 29, 1958), which yields two deviates per accepted pair; the spare one is part of
- * the state.
+ * Uniform doubles take 53 random bits from two outputs. Gaussian deviates use the ziggurat method
+ * (Marsaglia and Tsang, J. Stat. Softw. 5(8), 2000; tables in ziggurat.ts) with the layer index
+ * drawn from its own output, as Doornik ("An improved ziggurat method to generate normal random
+ * samples", 2005) recommends against the correlation of index and value bits in the original.
  *
  * The whole state is plain JSON (`dump()` / `Rng.load()`), so a run can be stopped and resumed.
  */
 import { InputError } from '../errors.js';
+import { fn, kn, wn, ZIGGURAT_R } from './ziggurat.js';
 
 export interface RngState {
   /** The four 32-bit words of the xoshiro128** state, as unsigned integers. */
   words: [number, number, number, number];
-  /** The second Box-Muller deviate not yet handed out, or null. */
-  spare: number | null;
 }
 
 const MASK64 = (1n << 64n) - 1n;
@@ -38,10 +37,8 @@ function rotl(x: number, k: number): number {
 }
 
 export class Rng {
-  // State in typed arrays: 32-bit words and the spare deviate stay unboxed (no heap numbers).
+  // State in a typed array: the 32-bit words stay unboxed (no heap numbers).
   private readonly s = new Uint32Array(4);
-  private readonly spareValue = new Float64Array(1);
-  private hasSpare = false;
 
   private constructor(words: readonly number[]) {
     for (let i = 0; i < 4; i++) this.s[i] = words[i] >>> 0;
@@ -73,25 +70,18 @@ export class Rng {
     if (!state || !Array.isArray(state.words) || state.words.length !== 4) {
       throw new InputError('random generator state must hold four 32-bit words', 'bad-state');
     }
-    const rng = Rng.fromWords(state.words);
-    if (typeof state.spare === 'number') {
-      rng.hasSpare = true;
-      rng.spareValue[0] = state.spare;
-    }
-    return rng;
+    return Rng.fromWords(state.words);
   }
 
   /** Replaces this generator's state in place (every holder of it then continues from `state`). */
   restore(state: RngState): void {
     const other = Rng.load(state);
     this.s.set(other.s);
-    this.hasSpare = other.hasSpare;
-    this.spareValue[0] = other.spareValue[0];
   }
 
   dump(): RngState {
     const s = this.s;
-    return { words: [s[0], s[1], s[2], s[3]], spare: this.hasSpare ? this.spareValue[0] : null };
+    return { words: [s[0], s[1], s[2], s[3]] };
   }
 
   /** Next unsigned 32-bit output of xoshiro128**. */
@@ -125,25 +115,25 @@ export class Rng {
     }
   }
 
-  /** Standard normal deviate (polar method, spare kept). */
+  /** Standard normal deviate (ziggurat). */
   normal(): number {
-    if (this.hasSpare) {
-      this.hasSpare = false;
-      return this.spareValue[0];
+    for (;;) {
+      const hz = this.nextU32() | 0; // signed 32-bit value
+      const iz = this.nextU32() & 127; // independent layer index (Doornik 2005)
+      if (Math.abs(hz) < kn[iz]) return hz * wn[iz];
+      const x = hz * wn[iz];
+      if (iz === 0) {
+        // The tail beyond r (Marsaglia 1964): x = -ln(U1) / r, accepted when -2 ln(U2) > x^2.
+        let t: number;
+        let y: number;
+        do {
+          t = -Math.log(1 - this.uniform()) / ZIGGURAT_R;
+          y = -Math.log(1 - this.uniform());
+        } while (y + y < t * t);
+        return hz > 0 ? ZIGGURAT_R + t : -ZIGGURAT_R - t;
+      }
+      if (fn[iz] + this.uniform() * (fn[iz - 1] - fn[iz]) < Math.exp(-0.5 * x * x)) return x;
     }
-    let u: number;
-    let v: number;
-    let s: number;
-    do {
-      // 32-bit uniforms on (-1, 1): ample resolution for the polar method, half the generator calls.
-      u = this.nextU32() * 4.656612873077393e-10 - 1;
-      v = this.nextU32() * 4.656612873077393e-10 - 1;
-      s = u * u + v * v;
-    } while (s >= 1 || s === 0);
-    const k = Math.sqrt((-2 * Math.log(s)) / s);
-    this.spareValue[0] = v * k;
-    this.hasSpare = true;
-    return u * k;
   }
 
   /** Fills `out` with independent standard normal deviates. */

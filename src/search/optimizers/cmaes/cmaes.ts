@@ -60,15 +60,17 @@ class Cmaes extends GenerationalOptimizer {
   protected nextGeneration(): Float64Array[] {
     const { run } = this;
     const dim = this.space.dim;
-    const xs: Float64Array[] = [];
-    this.steps = [];
-    for (let k = 0; k < run.p.lambda; k++) {
-      const y = new Float64Array(dim);
+    const lambda = run.p.lambda;
+    // The step buffers of the last generation are free again (its update is done): reuse them.
+    if (this.steps.length !== lambda) this.steps = Array.from({ length: lambda }, () => new Float64Array(dim));
+    const xs: Float64Array[] = new Array(lambda);
+    const { mean, sigma } = run;
+    for (let k = 0; k < lambda; k++) {
+      const y = this.steps[k];
       run.sampleStep(this.rng, y, this.z);
       const x = new Float64Array(dim);
-      for (let i = 0; i < dim; i++) x[i] = boxTransform(run.mean[i] + run.sigma * y[i]);
-      this.steps.push(y);
-      xs.push(x);
+      for (let i = 0; i < dim; i++) x[i] = boxTransform(mean[i] + sigma * y[i]);
+      xs[k] = x;
     }
     return xs;
   }
