@@ -10,6 +10,8 @@ import { metricSettingsFrom, scoreRuleFrom } from './settings.js';
 export interface Evaluation {
   score: number | number[];
   metrics: Partial<Record<MetricName, number>>;
+  /** Disorder samples left out (dyes pushed onto each other). */
+  skippedSamples?: number;
   error?: string;
 }
 
@@ -27,7 +29,8 @@ export function makeEvaluator(c: ConstraintSet, o: Objective): (p: Record<string
     const d = ds.decode(p);
     try {
       const m = computeMetrics({ sites: d.sites, traps: d.traps }, settings, metrics);
-      return { score: rule.kind === 'weighted_sum' ? -weightedScore(rule, m.values) : paretoVector(rule, m.values), metrics: m.values };
+      const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, m.values) : paretoVector(rule, m.values);
+      return { score, metrics: m.values, ...(m.skippedSamples ? { skippedSamples: m.skippedSamples } : {}) };
     } catch (e) {
       if (!(e instanceof LumenfoldError) || (e instanceof InputError && /finite-temperature/.test(e.message))) throw e;
       return { score: rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN), metrics: {}, error: e.message };

@@ -8,6 +8,7 @@ import type { Progress } from '../search/core/types.js';
 import type { RunState } from '../search/run.js';
 import { designSpace, type DesignPoint, type DesignSpace } from '../space/design-space.js';
 import type { Feasibility } from '../space/feasibility.js';
+import { LumenfoldError } from '../errors.js';
 import { makeEvaluator, type Evaluation } from './evaluator.js';
 import { naiveDesign } from './naive.js';
 import { EvaluationPool } from './pool.js';
@@ -49,6 +50,7 @@ export interface ResumePoint {
   /** Candidates scored so far (the index of the next history line). */
   scored: number;
   failed: number;
+  skippedSamples?: number;
   convergence: { evaluations: number; best: number }[];
 }
 
@@ -60,8 +62,13 @@ export interface OptimizationOutcome {
   choice?: string;
   evaluations: number;
   failedEvaluations: number;
+  /** Disorder samples left out over the whole run because they pushed two dyes onto each other. */
+  skippedDisorderSamples: number;
+  /** Archive designs left out of the ranking because their metrics could not be computed. */
+  unrankable: number;
   ranked: ScoredDesign[];
-  naive: ScoredDesign;
+  /** The naive evenly spaced design, when it can be scored at all. */
+  naive?: ScoredDesign;
   history: { evaluations: number; best: number }[];
   hypervolume?: number;
   seconds: number;
@@ -96,8 +103,10 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   const pool = s.workers > 1 ? new EvaluationPool(s.workers, c, o) : undefined;
   let index = s.resume?.scored ?? 0;
   let failed = s.resume?.failed ?? 0;
+  let skippedSamples = s.resume?.skippedSamples ?? 0;
   const record = (e: Evaluation) => {
     if (e.error) failed++;
+    skippedSamples += e.skippedSamples ?? 0;
     s.onEvaluation?.({ index: index++, score: e.score, feasible: !e.error, metrics: e.metrics, error: e.error });
     return e.score;
   };
@@ -141,13 +150,27 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   } finally {
     await pool?.close();
   }
-  const ranked = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => scoreDesign(ds, ds.decode(p), rule, settings, metrics));
+  // never a NaN in a ranking: designs whose metrics cannot be computed are left out and counted
+  let unrankable = 0;
+  const tryScore = (d: DesignPoint): ScoredDesign | undefined => {
+    try {
+      const r = scoreDesign(ds, d, rule, settings, metrics);
+      const ok = r.score !== undefined ? Number.isFinite(r.score) : r.objectives!.every((x) => Number.isFinite(x));
+      if (ok) return r;
+    } catch (e) {
+      if (!(e instanceof LumenfoldError)) throw e;
+    }
+    unrankable++;
+    return undefined;
+  };
+  const ranked = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => tryScore(ds.decode(p))).filter((r): r is ScoredDesign => r !== undefined);
   if (rule.kind === 'weighted_sum') ranked.sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score! - a.score!);
-  const naive = scoreDesign(ds, naiveDesign(ds), rule, settings, metrics);
+  const naive = tryScore(naiveDesign(ds));
   return {
     stopped,
-    resumePoint: { state: state!, scored: index, failed, convergence: history },
-    optimizer, choice, evaluations, failedEvaluations: failed, ranked: ranked.slice(0, s.top), naive, history, hypervolume,
+    resumePoint: { state: state!, scored: index, failed, skippedSamples, convergence: history },
+    optimizer, choice, evaluations, failedEvaluations: failed, skippedDisorderSamples: skippedSamples, unrankable,
+    ranked: ranked.slice(0, s.top), naive, history, hypervolume,
     seconds: (Date.now() - t0) / 1000,
   };
 }

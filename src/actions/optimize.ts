@@ -41,6 +41,7 @@ export interface OptimizeSummary {
   choice?: string;
   evaluations: number;
   failed_evaluations: number;
+  disorder_samples_skipped: number;
   seconds: number;
   best: { name: string; score?: number; metrics: Record<string, number> } | undefined;
   naive_score?: number;
@@ -88,9 +89,10 @@ export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
       choice: outcome.choice,
       evaluations: outcome.evaluations,
       failed_evaluations: outcome.failedEvaluations,
+      disorder_samples_skipped: outcome.skippedDisorderSamples,
       seconds: outcome.seconds,
       best: best ? { name: `${job.label}-rank01`, score: best.score, metrics: toRecord(best, job.label, {}).metrics as Record<string, number> } : undefined,
-      naive_score: outcome.naive.score,
+      naive_score: outcome.naive?.score,
       files: RUN_FILES,
     };
   } finally {
@@ -120,12 +122,14 @@ export function writeRunFiles(folder: string, job: OptimizationJob, outcome: Opt
     search: { ...job.search, workers: meta.workers, optimizer_used: outcome.optimizer, choice: outcome.choice ?? null },
     evaluations: outcome.evaluations,
     failed_evaluations: outcome.failedEvaluations,
+    disorder_samples_skipped: outcome.skippedDisorderSamples,
+    unrankable_designs: outcome.unrankable,
     configs: {
       constraints: configEntry(meta.files?.constraints, job.constraints),
       objective: configEntry(meta.files?.objective, job.objective),
     },
     best_score: records[0]?.score ?? null,
-    naive_score: outcome.naive.score ?? null,
+    naive_score: outcome.naive?.score ?? null,
     hypervolume: outcome.hypervolume ?? null,
     convergence: outcome.history,
   };

@@ -69,7 +69,7 @@ export async function sweep(req: SweepRequest): Promise<{ folder: string; points
       const best = outcome.ranked[0];
       const result: SweepPointResult = {
         format: 'lumenfold.sweep-point/1', index: j.index, id: job.id, label: j.label, point: j.point,
-        best_score: best?.score ?? null, naive_score: outcome.naive.score ?? null,
+        best_score: best?.score ?? null, naive_score: outcome.naive?.score ?? null,
         metrics: best ? (toRecord(best, j.label, {}).metrics as Record<string, number>) : {},
         evaluations: outcome.evaluations, seconds: outcome.seconds,
       };

@@ -56,5 +56,6 @@ export function optimizeCommand(ctx: CliContext): Command {
       ].join('\n') + '\n');
     }
     if (!f.quiet && s.failed_evaluations > 0) ctx.stderr(`note: ${s.failed_evaluations} candidates could not be scored (see history.jsonl)\n`);
+    if (!f.quiet && s.disorder_samples_skipped > 0) ctx.stderr(`note: ${s.disorder_samples_skipped} disorder samples were left out because they pushed two dyes onto each other\n`);
   });
 }

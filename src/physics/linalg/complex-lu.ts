@@ -1,0 +1,102 @@
+import { NumericalError } from '../../errors.js';
+import { type ComplexMatrix, complexCopy, complexZeros } from './complex-dense.js';
+
+/** LU factors with partial pivoting of a complex square matrix: P A = L U (L unit lower), packed in lu. */
+export interface ComplexLu {
+  readonly lu: ComplexMatrix;
+  readonly pivots: Int32Array;
+}
+
+/**
+ * Complex LU factorization with partial pivoting on |re| + |im| (Golub and Van Loan, Matrix Computations,
+ * 4th ed., alg. 3.4.1, in complex arithmetic). Throws NumericalError on a zero pivot.
+ */
+export function complexLuFactor(a: ComplexMatrix): ComplexLu {
+  const lu = complexCopy(a);
+  const { n, re, im } = lu;
+  const pivots = new Int32Array(n);
+  for (let k = 0; k < n; k++) {
+    let p = k, best = -1;
+    for (let i = k; i < n; i++) {
+      const v = Math.abs(re[i * n + k]) + Math.abs(im[i * n + k]);
+      if (v > best) { best = v; p = i; }
+    }
+    pivots[k] = p;
+    if (!(best > 0)) throw new NumericalError(`complex matrix is singular (column ${k + 1} of ${n} has no pivot)`, 'singular');
+    if (p !== k) {
+      for (let j = 0; j < n; j++) {
+        const a = k * n + j, b = p * n + j;
+        let t = re[a]; re[a] = re[b]; re[b] = t;
+        t = im[a]; im[a] = im[b]; im[b] = t;
+      }
+    }
+    const rk = k * n;
+    const pr = re[rk + k], pi = im[rk + k];
+    const d = pr * pr + pi * pi;
+    const ir = pr / d, ii = -pi / d;
+    for (let i = k + 1; i < n; i++) {
+      const ri = i * n;
+      const ar = re[ri + k], ai = im[ri + k];
+      if (ar === 0 && ai === 0) continue;
+      const fr = ar * ir - ai * ii, fi = ar * ii + ai * ir;
+      re[ri + k] = fr;
+      im[ri + k] = fi;
+      for (let j = k + 1; j < n; j++) {
+        const br = re[rk + j], bi = im[rk + j];
+        re[ri + j] -= fr * br - fi * bi;
+        im[ri + j] -= fr * bi + fi * br;
+      }
+    }
+  }
+  return { lu, pivots };
+}
+
+/**
+ * Inverse from the LU factors: solves A X = I for all columns at once, row-oriented (forward substitution
+ * with L, back substitution with U, then the column swaps of P).
+ */
+export function complexLuInverse(f: ComplexLu): ComplexMatrix {
+  const { lu, pivots } = f;
+  const { n, re, im } = lu;
+  // X = U^-1 L^-1 P: start from P (row permutation of I), apply L^-1 and U^-1 to whole rows.
+  const x = complexZeros(n);
+  const { re: xr, im: xi } = x;
+  const perm = Int32Array.from({ length: n }, (_, i) => i);
+  for (let k = 0; k < n; k++) { const p = pivots[k]; const t = perm[k]; perm[k] = perm[p]; perm[p] = t; }
+  for (let i = 0; i < n; i++) xr[i * n + perm[i]] = 1;
+  for (let i = 1; i < n; i++) {
+    const ri = i * n;
+    for (let k = 0; k < i; k++) {
+      const lr = re[ri + k], li = im[ri + k];
+      if (lr === 0 && li === 0) continue;
+      const rk = k * n;
+      for (let j = 0; j < n; j++) {
+        const br = xr[rk + j], bi = xi[rk + j];
+        xr[ri + j] -= lr * br - li * bi;
+        xi[ri + j] -= lr * bi + li * br;
+      }
+    }
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    const ri = i * n;
+    for (let k = i + 1; k < n; k++) {
+      const ur = re[ri + k], ui = im[ri + k];
+      if (ur === 0 && ui === 0) continue;
+      const rk = k * n;
+      for (let j = 0; j < n; j++) {
+        const br = xr[rk + j], bi = xi[rk + j];
+        xr[ri + j] -= ur * br - ui * bi;
+        xi[ri + j] -= ur * bi + ui * br;
+      }
+    }
+    const pr = re[ri + i], pi = im[ri + i];
+    const d = pr * pr + pi * pi;
+    const ir = pr / d, ii = -pi / d;
+    for (let j = 0; j < n; j++) {
+      const br = xr[ri + j], bi = xi[ri + j];
+      xr[ri + j] = br * ir - bi * ii;
+      xi[ri + j] = br * ii + bi * ir;
+    }
+  }
+  return x;
+}
