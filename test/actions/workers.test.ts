@@ -1,0 +1,29 @@
+import fc from 'fast-check';
+import { afterAll, describe, expect, it } from 'vitest';
+import { DEMO } from '../../src/actions/demo.js';
+import { makeEvaluator } from '../../src/actions/evaluator.js';
+import { loadConfigFile } from '../../src/config/load.js';
+import { Rng } from '../../src/search/rng.js';
+import { designSpace } from '../../src/space/design-space.js';
+
+// The pool runs the built worker script (npm test builds first), so it is imported from dist.
+const { EvaluationPool } = await import(new URL('../../dist/actions/pool.js', import.meta.url).href) as typeof import('../../src/actions/pool.js');
+
+const constraints = loadConfigFile(DEMO.constraints, 'constraints');
+const objective = loadConfigFile(DEMO.objective, 'objective');
+const ds = designSpace(constraints);
+const local = makeEvaluator(constraints, objective);
+const pools = [1, 2, 3].map((k) => new EvaluationPool(k, constraints, objective));
+afterAll(async () => { await Promise.all(pools.map((p) => p.close())); });
+
+describe('evaluation does not depend on the number of workers (fast-check)', () => {
+  it('gives the in-process scores, in order, for 1, 2 and 3 workers', async () => {
+    await fc.assert(fc.asyncProperty(fc.integer({ min: 0, max: 2 ** 31 }), fc.integer({ min: 1, max: 9 }), async (seed, count) => {
+      const rng = Rng.fromSeed(seed);
+      const x = new Float64Array(ds.space.dim);
+      const points = Array.from({ length: count }, () => { ds.space.sampleInto(rng, x); return ds.space.decode(x); });
+      const expected = points.map(local);
+      for (const pool of pools) expect(await pool.evaluate(points)).toEqual(expected);
+    }), { numRuns: 15 });
+  });
+});
