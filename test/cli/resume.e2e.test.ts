@@ -1,9 +1,9 @@
 import { spawn } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { BIN, runCli } from '../helpers/cli.js';
+import { BIN, ROOT, runCli } from '../helpers/cli.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'lumenfold-resume-'));
 // about 5 s of work on one core, so every stop below lands inside the run
@@ -50,5 +50,37 @@ describe('checkpoint and resume', () => {
     const r = runCli(['optimize', '--resume', dir]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/not a lumenfold run folder/);
+  });
+});
+
+describe('an interrupted sweep', () => {
+  const sweepFile = join(dir, 'sweep.yaml');
+  writeFileSync(sweepFile, [
+    'format: lumenfold.sweep/1',
+    `constraints: ${join(ROOT, 'constraints/demo-helix.yaml')}`,
+    `objective: ${join(ROOT, 'objectives/demo-robust.yaml')}`,
+    'vary:',
+    '  - path: objective.model.temperature',
+    '    values: [200, 295]',
+    '',
+  ].join('\n'));
+  const args = (out: string) => ['sweep', sweepFile, '--budget', '2000', '--seed', '4', '--quiet', '--out', out];
+  it('continues from the checkpoint of the point it was stopped in, to the same summary', async () => {
+    const straight = runCli(args(join(dir, 'sweep-straight')));
+    expect(straight.code, straight.stderr).toBe(0);
+    const out = join(dir, 'sweep-stopped');
+    const code = await new Promise<number | null>((resolve) => {
+      const child = spawn(process.execPath, [BIN, ...args(out)], { stdio: 'ignore', cwd: tmpdir() });
+      const timer = setInterval(() => {
+        if (!existsSync(out) || !readdirSync(out).some((f) => /^000-/.test(f))) return;
+        clearInterval(timer);
+        setTimeout(() => child.kill('SIGINT'), 500);
+      }, 10);
+      child.on('exit', (c) => { clearInterval(timer); resolve(c); });
+    });
+    expect(code).toBe(130);
+    const again = runCli(args(out));
+    expect(again.code, again.stderr).toBe(0);
+    expect(readFileSync(join(out, 'summary.csv'), 'utf8')).toBe(readFileSync(join(dir, 'sweep-straight', 'summary.csv'), 'utf8'));
   });
 });
