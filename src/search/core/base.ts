@@ -8,6 +8,7 @@ import { Rng, type RngState } from '../rng.js';
 import { hypervolume } from '../multi/hypervolume.js';
 import type { ResolvedOptions } from '../options.js';
 import { BestArchive } from './bestArchive.js';
+import { plain } from './evaluated.js';
 import { sanitizeScore, sanitizeViolation } from './compare.js';
 import { ParetoArchive } from './paretoArchive.js';
 import { f64, fromJson, toJson } from './state.js';
@@ -82,7 +83,14 @@ export abstract class BaseOptimizer implements Optimizer {
       for (const p of this.propose(n - out.length)) out.push({ id: this.nextId++, x: p.x, tag: p.tag });
     }
     for (const p of out) this.outstanding.set(p.id, p);
-    return out.map((p) => ({ id: p.id, x: p.x.slice() }));
+    // The caller gets copies (views of one block), so changing them cannot disturb the optimizer.
+    const dim = this.space.dim;
+    const copies = new Float64Array(out.length * dim);
+    return out.map((p, k) => {
+      const x = copies.subarray(k * dim, (k + 1) * dim);
+      x.set(p.x);
+      return { id: p.id, x };
+    });
   }
 
   tell(candidates: readonly Candidate[], scores: readonly Score[], violations?: readonly number[]): void {
@@ -111,11 +119,11 @@ export abstract class BaseOptimizer implements Optimizer {
     for (const t of told) {
       this.outstanding.delete(t.id);
       this.evaluations++;
-      const e: Evaluated = { id: t.id, x: t.x, f: t.f, violation: t.violation };
+      // A Told is an Evaluated (plus its tag): archived as it is, no copy.
       if (this.multi) {
-        this.front.insert(e);
-        this.watchReference(e);
-      } else this.best.insert(e);
+        this.front.insert(t);
+        this.watchReference(t);
+      } else this.best.insert(t);
     }
     if (this.multi) this.front.prune();
     this.absorb(told);
@@ -132,18 +140,21 @@ export abstract class BaseOptimizer implements Optimizer {
   }
 
   recommend(): Evaluated | undefined {
-    if (!this.multi) return this.best.best();
+    if (!this.multi) {
+      const b = this.best.best();
+      return b && plain(b);
+    }
     const front = this.front.all();
     if (front.length === 0) return undefined;
     // A compromise point: smallest sum of objectives scaled to the front's ranges.
     const lo = Array.from({ length: this.m }, (_, k) => Math.min(...front.map((e) => e.f[k])));
     const hi = Array.from({ length: this.m }, (_, k) => Math.max(...front.map((e) => e.f[k])));
     const cost = (e: Evaluated) => e.f.reduce((s, v, k) => s + (hi[k] > lo[k] ? (v - lo[k]) / (hi[k] - lo[k]) : 0), 0);
-    return front.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+    return plain(front.reduce((a, b) => (cost(b) < cost(a) ? b : a)));
   }
 
   archive(): Evaluated[] {
-    return this.multi ? this.front.all() : this.best.all();
+    return (this.multi ? this.front.all() : this.best.all()).map(plain);
   }
 
   progress(): Progress {

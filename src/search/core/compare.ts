@@ -23,7 +23,9 @@ export function sanitizeScore(score: Score, m: number): Float64Array {
   if (score === null) return new Float64Array(Math.max(1, m)).fill(Infinity);
   if (typeof score === 'number') {
     if (m !== 1) throw new InputError(`expected ${m} objective values, got a single number`, 'bad-score');
-    return Float64Array.of(clean(score));
+    const f = new Float64Array(1);
+    f[0] = clean(score);
+    return f;
   }
   if (!Array.isArray(score) && !ArrayBuffer.isView(score)) {
     throw new InputError(`a score must be a number or an array of numbers, got ${JSON.stringify(score)}`, 'bad-score');

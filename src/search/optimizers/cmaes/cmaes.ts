@@ -65,10 +65,11 @@ class Cmaes extends GenerationalOptimizer {
     if (this.steps.length !== lambda) this.steps = Array.from({ length: lambda }, () => new Float64Array(dim));
     const xs: Float64Array[] = new Array(lambda);
     const { mean, sigma } = run;
+    const block = new Float64Array(lambda * dim); // one allocation for the generation's points
     for (let k = 0; k < lambda; k++) {
       const y = this.steps[k];
       run.sampleStep(this.rng, y, this.z);
-      const x = new Float64Array(dim);
+      const x = block.subarray(k * dim, (k + 1) * dim);
       for (let i = 0; i < dim; i++) x[i] = boxTransform(mean[i] + sigma * y[i]);
       xs[k] = x;
     }
