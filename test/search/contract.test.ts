@@ -3,7 +3,9 @@
  * standardized box, the same seed gives the identical run (batch sizes 1 and 8), a run stopped half
  * way and resumed from its JSON state ends exactly like a run straight through, NaN and infinite
  * scores never crash a run nor win it, constraints make the recommendation feasible, and bad input
- * gives typed errors that name the alternatives.
+ * gives typed errors that name the alternatives. These are interface properties required by the
+ * issue (common practice for ask/tell libraries); the references they check against are runs of the
+ * same code, so each equality check is paired with a case that must differ (another seed).
  */
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../../src/errors.js';

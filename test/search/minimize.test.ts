@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { InputError } from '../../src/errors.js';
 import { chooseOptimizer, describeOptimizer, minimize, SearchSpace, type StandardSpace } from '../../src/search/index.js';
 
-// A mixed problem with a known optimum: the dye sets the best position, the integer a penalty.
+// A mixed problem whose optimum is known by construction (every term is >= 0 and vanishes only at
+// dye B, n = 5, x = CENTRES.B): the dye sets the best position and an offset, the integer a penalty.
 const CENTRES: Record<string, number[]> = { A: [1, 1, 1], B: [-2, 0.5, 3], C: [0, 0, 0], D: [2, -1, -3] };
 const OFFSET: Record<string, number> = { A: 1, B: 0, C: 0.5, D: 2 };
 function mixed() {
