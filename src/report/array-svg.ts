@@ -66,7 +66,7 @@ export function arraySvg(record: DesignRecord, options: ArrayPictureOptions = {}
   const couplings = pairs.sort((a, b) => Math.abs(a.J) - Math.abs(b.J)).map(({ i, j, J }) => {
     const f = Math.abs(J) / jMax;
     return el('line', {
-      class: 'coupling', 'data-sites': `${i + 1} ${j + 1}`, 'data-coupling': label(J), x1: X(centres[i][0]), y1: Y(centres[i][1]), x2: X(centres[j][0]), y2: Y(centres[j][1]),
+      class: 'coupling', 'data-sites': `${i + 1} ${j + 1}`, 'data-coupling': String(J), x1: X(centres[i][0]), y1: Y(centres[i][1]), x2: X(centres[j][0]), y2: Y(centres[j][1]),
       stroke: COUPLING_COLOUR, 'stroke-width': 0.8 + 5 * f, 'stroke-opacity': 0.2 + 0.55 * f, 'stroke-linecap': 'round',
     }, el('title', {}, esc(`coupling J(${i + 1},${j + 1}) = ${label(J)} cm^-1`)));
   });

@@ -1,21 +1,13 @@
 /** Shaping run data into the rows the charts plot (no numerics beyond picking fields). */
 import type { PopulationTraces } from '../physics/dynamics.js';
 import type { DesignRecord } from '../output/record.js';
-import type { ConvergenceData, DynamicsData, FrontData } from './charts.js';
+import type { DynamicsData, FrontData } from './charts.js';
 
 /** One line of history.jsonl: the candidate's index, its score (a number, a vector for Pareto runs, or null) and metrics. */
 export interface HistoryRow {
   readonly i: number;
   readonly score: number | readonly number[] | null;
   readonly [metric: string]: unknown;
-}
-
-/** Convergence data of a single-objective run: every candidate's objective and the best so far. */
-export function convergenceData(convergence: ConvergenceData['convergence'], history: readonly HistoryRow[]): ConvergenceData {
-  const candidates = history
-    .filter((h) => typeof h.score === 'number' && Number.isFinite(h.score))
-    .map((h) => ({ evaluation: h.i + 1, value: h.score as number }));
-  return { convergence, candidates };
 }
 
 /** Front data of a multi-objective run from the first two Pareto metrics of every candidate and of the ranked designs. */

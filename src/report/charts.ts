@@ -21,35 +21,44 @@ const CONFIG = {
   view: { stroke: '#d5dae1' },
 } as const;
 
-function spec(body: Record<string, unknown>): TopLevelSpec {
-  return { $schema: SCHEMA, width: 560, height: 260, config: CONFIG, ...body } as TopLevelSpec;
+/** Layout of a chart: a title (none by default: the report heads each chart itself) and a width in px, or 'container' to fill its box. */
+export interface ChartLayout {
+  title?: string;
+  width?: number | 'container';
+}
+
+function spec(body: Record<string, unknown>, layout: ChartLayout): TopLevelSpec {
+  const width = layout.width ?? 560;
+  return {
+    $schema: SCHEMA, width, height: 260, config: CONFIG, ...(layout.title ? { title: layout.title } : {}),
+    ...(width === 'container' ? { autosize: { type: 'fit', contains: 'padding' } } : {}), ...body,
+  } as TopLevelSpec;
 }
 
 export interface ConvergenceData {
-  /** Best objective so far after each batch. */
+  /** Best objective so far after each batch that improved it (null before any feasible candidate). */
   convergence: readonly { evaluations: number; best: number | null }[];
-  /** The objective of every scored candidate, by evaluation number (1-based). */
-  candidates: readonly { evaluation: number; value: number }[];
+  /** Evaluations of the whole run (the curve is carried flat to here). */
+  evaluations: number;
 }
 
-/** Best objective (weighted score, higher is better) against the number of evaluations, over every candidate. */
-export function convergenceSpec(d: ConvergenceData, title = 'Convergence of the search'): TopLevelSpec {
-  const best = d.convergence.filter((c) => c.best !== null && Number.isFinite(c.best));
+/** Best objective so far (weighted score, higher is better) against the number of evaluations. */
+export function convergenceSpec(d: ConvergenceData, layout: ChartLayout = {}): TopLevelSpec {
+  const best = d.convergence.filter((c): c is { evaluations: number; best: number } => c.best !== null && Number.isFinite(c.best));
+  const last = best[best.length - 1];
+  const points = best.map((c) => ({ ...c, improved: true }));
+  if (last && d.evaluations > last.evaluations) points.push({ evaluations: d.evaluations, best: last.best, improved: false });
   return spec({
-    title,
+    data: { values: points },
     layer: [
-      {
-        data: { values: d.candidates },
-        mark: { type: 'circle', size: 14, opacity: 0.35, color: CHART_COLOURS.muted },
-        encoding: { x: { field: 'evaluation', type: 'quantitative', title: 'evaluations' }, y: { field: 'value', type: 'quantitative', title: 'objective (weighted score)', scale: { zero: false } }, tooltip: [{ field: 'evaluation' }, { field: 'value', format: '.4f' }] },
-      },
-      {
-        data: { values: best },
-        mark: { type: 'line', interpolate: 'step-after', strokeWidth: 2.5, color: CHART_COLOURS.accent, point: { filled: true, size: 30, color: CHART_COLOURS.accent } },
-        encoding: { x: { field: 'evaluations', type: 'quantitative' }, y: { field: 'best', type: 'quantitative' }, tooltip: [{ field: 'evaluations' }, { field: 'best', title: 'best so far', format: '.4f' }] },
-      },
+      { mark: { type: 'line', interpolate: 'step-after', strokeWidth: 2.5, color: CHART_COLOURS.accent } },
+      { transform: [{ filter: 'datum.improved' }], mark: { type: 'point', filled: true, size: 40, color: CHART_COLOURS.accent }, encoding: { tooltip: [{ field: 'evaluations' }, { field: 'best', title: 'best so far', format: '.5f' }] } },
     ],
-  });
+    encoding: {
+      x: { field: 'evaluations', type: 'quantitative', title: 'evaluations', scale: { domain: [0, Math.max(d.evaluations, last?.evaluations ?? 1)] } },
+      y: { field: 'best', type: 'quantitative', title: 'best objective so far (weighted score)', scale: { zero: false } },
+    },
+  }, layout);
 }
 
 export interface RobustnessData {
@@ -62,12 +71,11 @@ export interface RobustnessData {
 }
 
 /** Histogram of the efficiencies of the best design's disorder samples, with the nominal value and the 10th percentile. */
-export function robustnessSpec(d: RobustnessData, title = 'Robustness of the best design under static disorder'): TopLevelSpec {
+export function robustnessSpec(d: RobustnessData, layout: ChartLayout = {}): TopLevelSpec {
   const marks = [{ value: d.nominal, what: 'without disorder' }, { value: d.p10, what: '10th percentile' }];
   const xs = [...d.efficiencies, d.nominal];
   const x = { field: 'efficiency', type: 'quantitative', title: 'trapping efficiency', bin: { maxbins: 24, extent: [Math.max(0, Math.min(...xs) - 0.01), Math.min(1, Math.max(...xs) + 0.01)] } };
   return spec({
-    title,
     layer: [
       { data: { values: d.efficiencies.map((efficiency) => ({ efficiency })) }, mark: { type: 'bar', color: CHART_COLOURS.second, opacity: 0.85, binSpacing: 1 }, encoding: { x, y: { aggregate: 'count', type: 'quantitative', title: 'disorder samples' } } },
       {
@@ -76,12 +84,11 @@ export function robustnessSpec(d: RobustnessData, title = 'Robustness of the bes
         encoding: {
           x: { field: 'value', type: 'quantitative' },
           color: { field: 'what', type: 'nominal', title: null, scale: { domain: marks.map((m) => m.what), range: [CHART_COLOURS.accent, CHART_COLOURS.ink] }, legend: { orient: 'top-left' } },
-          strokeDash: { field: 'what', type: 'nominal', scale: { domain: marks.map((m) => m.what), range: [[1, 0], [5, 3]] }, legend: null },
           tooltip: [{ field: 'what', title: 'line' }, { field: 'value', title: 'efficiency', format: '.4f' }],
         },
       },
     ],
-  });
+  }, layout);
 }
 
 export interface FrontData {
@@ -92,11 +99,10 @@ export interface FrontData {
 }
 
 /** The trade-off of a multi-objective run: every candidate and the ranked (non-dominated) designs. */
-export function frontSpec(d: FrontData, title = 'Trade-off front of the first two objectives'): TopLevelSpec {
+export function frontSpec(d: FrontData, layout: ChartLayout = {}): TopLevelSpec {
   const [ax, bx] = d.axes.map((m) => `${m.metric} (${m.sense === 'minimize' ? 'lower' : 'higher'} is better)`);
   const enc = { x: { field: 'a', type: 'quantitative', title: ax, scale: { zero: false } }, y: { field: 'b', type: 'quantitative', title: bx, scale: { zero: false } } };
   return spec({
-    title,
     layer: [
       { data: { values: d.candidates }, mark: { type: 'circle', size: 14, opacity: 0.35, color: CHART_COLOURS.muted }, encoding: enc },
       {
@@ -105,7 +111,7 @@ export function frontSpec(d: FrontData, title = 'Trade-off front of the first tw
         encoding: { ...enc, tooltip: [{ field: 'rank' }, { field: 'name' }, { field: 'a', title: d.axes[0].metric, format: '.4g' }, { field: 'b', title: d.axes[1].metric, format: '.4g' }] },
       },
     ],
-  });
+  }, layout);
 }
 
 export interface DynamicsData {
@@ -116,10 +122,9 @@ export interface DynamicsData {
 }
 
 /** Site populations and the sink against time under one model. */
-export function dynamicsSpec(d: DynamicsData, title: string): TopLevelSpec {
+export function dynamicsSpec(d: DynamicsData, layout: ChartLayout = {}): TopLevelSpec {
   const colours = d.series.map((s, i) => (s.startsWith('sink') ? '#111111' : SERIES_COLOURS[i % SERIES_COLOURS.length]));
   return spec({
-    title,
     height: 240,
     data: { values: d.rows },
     mark: { type: 'line', strokeWidth: 2 },
@@ -128,8 +133,7 @@ export function dynamicsSpec(d: DynamicsData, title: string): TopLevelSpec {
       y: { field: 'population', type: 'quantitative', title: 'population', scale: { domain: [0, 1] } },
       color: { field: 'series', type: 'nominal', title: 'population of', scale: { domain: d.series, range: colours }, sort: d.series },
       strokeDash: { field: 'kind', type: 'nominal', scale: { domain: ['site', 'trap', 'sink'], range: [[1, 0], [6, 2], [2, 2]] }, legend: null },
-      strokeWidth: { field: 'kind', type: 'nominal', scale: { domain: ['site', 'trap', 'sink'], range: [1.8, 2.6, 3] }, legend: null },
       tooltip: [{ field: 'series' }, { field: 'time', title: 'time (ps)', format: '.4g' }, { field: 'population', format: '.4f' }],
     },
-  });
+  }, layout);
 }

@@ -58,14 +58,22 @@ function jsonScript(value: unknown): string {
 
 const CSP = "default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data: blob:; font-src data:; worker-src blob:";
 
-function chartFigure(c: ReportChart, extra = ''): string {
-  const body = c.spec ? `<div class="chart" id="${esc(c.id)}" role="img" aria-label="${esc(c.heading)}"></div>` : `<p class="note" id="${esc(c.id)}">${esc(c.missing ?? 'not available')}</p>`;
-  return `<figure><h3>${esc(c.heading)}</h3>${body}<figcaption>${esc(c.caption)}</figcaption>${extra}</figure>`;
+/** The box a chart is drawn into, or the reason there is no chart. */
+function chartBody(c: ReportChart): string {
+  return c.spec ? `<div class="chart" id="${esc(c.id)}" role="img" aria-label="${esc(c.heading)}"></div>` : `<p class="note" id="${esc(c.id)}">${esc(c.missing ?? 'not available')}</p>`;
+}
+
+function chartFigure(c: ReportChart): string {
+  return `<figure><h3>${esc(c.heading)}</h3>${chartBody(c)}<figcaption>${esc(c.caption)}</figcaption></figure>`;
+}
+
+function dynamicsFigure(d: ReportDynamics): string {
+  return `<figure class="dynamics"><h3>${esc(d.heading)}</h3><div class="side">${chartBody(d)}<div>${parameterTable(d.parameters)}</div></div><figcaption>${esc(d.caption)}</figcaption></figure>`;
 }
 
 function pictureFigure(p: ReportContent['pictures'][number]): string {
   const href = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(p.svg)}`;
-  return `<figure id="${esc(p.id)}"><h3>${esc(p.heading)}</h3>${p.svg}<figcaption>${esc(p.caption)} <a class="save" download="${esc(p.id)}.svg" href="${esc(href)}">save SVG</a></figcaption></figure>`;
+  return `<figure id="${esc(p.id)}" aria-label="${esc(p.heading)}">${p.svg}<figcaption>${esc(p.caption)} <a class="save" download="${esc(p.id)}.svg" href="${esc(href)}">save SVG</a></figcaption></figure>`;
 }
 
 export function reportHtml(c: ReportContent): string {
@@ -89,8 +97,8 @@ export function reportHtml(c: ReportContent): string {
     `<section id="ranking"><h2>Ranked designs</h2>${rankingTable(c.ranked, c.scoreMetrics)}<p class="note">Highlighted metrics enter the objective. Margins are distances to the constraint limits (negative would be a violation).</p></section>`,
     `<section id="pictures"><h2>Best design</h2><div class="grid">${c.pictures.map(pictureFigure).join('')}</div></section>`,
     `<section id="view3d"><h2>3-D view of the best design</h2>${viewer}</section>`,
-    `<section id="search"><h2>Search and robustness</h2><div class="grid">${c.searchCharts.map((x) => chartFigure(x)).join('')}</div></section>`,
-    `<section id="dynamics"><h2>Population dynamics of the best design</h2><div class="grid">${c.dynamics.map((d) => chartFigure(d, parameterTable(d.parameters))).join('')}</div></section>`,
+    `<section id="search"><h2>Search and robustness</h2><div class="grid">${c.searchCharts.map(chartFigure).join('')}</div></section>`,
+    `<section id="dynamics"><h2>Population dynamics of the best design</h2><p class="note">The same design under each transport model; parameters the objective does not set take the stated defaults.</p>${c.dynamics.map(dynamicsFigure).join('')}</section>`,
     '</main>',
     `<footer>Written by lumenfold on ${esc(c.generated)}. Works offline: ${c.libraries.map((l) => `${esc(l.name)} ${esc(l.version)} (${esc(l.license)})`).join(', ')} are inlined with their licences.</footer>`,
     `<script type="application/json" id="lumenfold-data">${jsonScript(data)}</script>`,

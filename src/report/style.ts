@@ -23,7 +23,11 @@ details pre { margin: 0; padding: 10px 14px; max-height: 28em; overflow: auto; b
 .grid { display: grid; grid-template-columns: repeat(auto-fit, minmax(520px, 1fr)); gap: 18px; align-items: start; }
 figure { margin: 0; padding: 10px; border: 1px solid var(--rule); border-radius: 4px; background: #fff; }
 figure svg { max-width: 100%; height: auto; }
-.chart { min-height: 120px; }
+.chart { min-height: 120px; width: 100%; }
+figure.dynamics { margin-bottom: 16px; }
+.side { display: grid; grid-template-columns: minmax(0, 1fr) auto; gap: 18px; align-items: start; }
+@media (max-width: 900px) { .side { grid-template-columns: 1fr; } }
+table.ranking td { white-space: nowrap; }
 #viewer { position: relative; width: 100%; height: 480px; border: 1px solid var(--rule); border-radius: 4px; }
 .tag { display: inline-block; padding: 0 6px; border-radius: 3px; font-size: 12px; background: var(--panel); color: var(--muted); }
 .tag.objective { background: #fbe9e5; color: var(--accent); }

@@ -1,0 +1,20 @@
+import { Command } from 'commander';
+import { writeRunReport } from '../../actions/report.js';
+import type { CliContext } from '../context.js';
+import { outputPath } from '../paths.js';
+
+export function reportCommand(ctx: CliContext): Command {
+  return new Command('report')
+    .description('write one self-contained HTML file (works offline) about a run folder: run and configs, ranked designs, pictures, robustness, population dynamics and a 3-D view of the best design')
+    .argument('<run-folder>', 'run folder written by lumenfold optimize')
+    .option('--out <file>', 'report file (default: RUN_FOLDER/report.html)')
+    .option('--force', 'overwrite an existing report')
+    .option('--allow-outside', 'allow --out to point outside the working folder')
+    .option('--json', 'print the result as JSON on stdout')
+    .action((folder: string, f: { out?: string; force?: boolean; allowOutside?: boolean; json?: boolean }) => {
+      const out = f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside));
+      const s = writeRunReport({ runFolder: folder, out, force: Boolean(f.force) });
+      for (const n of s.notes) ctx.stderr(`note: ${n}\n`);
+      ctx.stdout(f.json ? JSON.stringify(s, null, 2) + '\n' : `report  ${s.report} (${Math.round(s.bytes / 1024)} kB, ${s.designs} ranked designs)\n`);
+    });
+}
