@@ -53,8 +53,38 @@ export function designSystem(d: Design, s: MetricSettings, sites: readonly Site[
   };
 }
 
-/** Compute the named metrics of one design; only what is asked is computed. */
-export function computeMetrics(d: Design, s: MetricSettings, wanted: readonly MetricName[]): MetricValues {
+/** Efficiencies of the disorder samples [from, to) of the ensemble, and how many were left out. */
+export interface EnsembleEfficiencies {
+  etas: number[];
+  skipped: number;
+}
+
+/**
+ * Efficiency of a design in each disorder sample from `from` to `to` (default: all), in sample order. Samples
+ * that push two dyes onto each other are left out and counted. Chunks computed apart (on worker threads) and
+ * concatenated in order give the same list as one call.
+ */
+export function ensembleEfficiencies(d: Design, s: MetricSettings, t: TransportOptions = transportOptions(s.transport), from = 0, to?: number): EnsembleEfficiencies {
+  if (!s.disorder) throw new InputError('robust metrics need a disorder ensemble');
+  const end = Math.min(to ?? s.disorder.draws.length, s.disorder.draws.length);
+  const etas: number[] = [];
+  let skipped = 0;
+  for (let k = from; k < end; k++) {
+    try {
+      etas.push(evaluateTransport(designSystem(d, s, applyDisorder(d.sites, s.disorder, k)), t).efficiency);
+    } catch (e) {
+      if (!(e instanceof InputError)) throw e;
+      skipped++;
+    }
+  }
+  return { etas, skipped };
+}
+
+/**
+ * Compute the named metrics of one design; only what is asked is computed. `precomputed` supplies the disorder
+ * efficiencies when they were computed elsewhere (for example in parallel).
+ */
+export function computeMetrics(d: Design, s: MetricSettings, wanted: readonly MetricName[], precomputed?: EnsembleEfficiencies): MetricValues {
   const t = transportOptions(s.transport);
   const values: Partial<Record<MetricName, number>> = {};
   const warnings: string[] = [];
@@ -71,17 +101,10 @@ export function computeMetrics(d: Design, s: MetricSettings, wanted: readonly Me
     }
   }
   if (want.has('robust_mean') || want.has('robust_p10') || want.has('robust_share')) {
-    if (!s.disorder) throw new InputError('robust metrics need a disorder ensemble');
-    const etas: number[] = [];
-    for (let k = 0; k < s.disorder.draws.length; k++) {
-      try {
-        etas.push(evaluateTransport(designSystem(d, s, applyDisorder(d.sites, s.disorder, k)), t).efficiency);
-      } catch (e) {
-        if (!(e instanceof InputError)) throw e;
-        skipped++;
-      }
-    }
-    if (skipped) warnings.push(`${skipped} of ${s.disorder.draws.length} disorder samples put two dyes on top of each other and were left out`);
+    const ens = precomputed ?? ensembleEfficiencies(d, s, t);
+    const etas = ens.etas;
+    skipped = ens.skipped;
+    if (skipped) warnings.push(`${skipped} of ${etas.length + skipped} disorder samples put two dyes on top of each other and were left out`);
     if (etas.length === 0) throw new ModelError('no disorder sample could be scored: the jitter pushes dyes onto each other every time');
     values.robust_mean = mean(etas);
     values.robust_p10 = quantile(etas, 0.1);

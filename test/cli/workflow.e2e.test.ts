@@ -43,6 +43,8 @@ describe('the design workflow through the built binary', () => {
     for (let i = 1; i < ranked.length; i++) expect(ranked[i - 1].score).toBeGreaterThanOrEqual(ranked[i].score);
     const scored = JSON.parse(runCli(['score', designs[0], '--json']).stdout);
     expect(scored[0].metrics.efficiency).toBeGreaterThan(0);
+    // the disorder ensemble shared out over worker threads gives the same numbers
+    expect(JSON.parse(runCli(['score', designs[0], '--json', '--workers', '3']).stdout)).toEqual(scored);
     const pdb = runCli(['export', designs[0], '--format', 'pdb']);
     expect(pdb.code).toBe(0);
     expect(pdb.stdout).toMatch(/^HETATM/m);

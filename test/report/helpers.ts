@@ -61,3 +61,15 @@ print(json.dumps({'H': H.tolist(), 'energies': w.tolist(), 'strengths': f.tolist
     sites,
   );
 }
+
+/** The accessible marks of a Vega SVG (parsed by Python's XML parser): each mark's role description and label. */
+export function svgMarks(svg: string): { role: string; label: string }[] {
+  return python(
+    `
+import sys, json, xml.etree.ElementTree as ET
+root = ET.fromstring(json.load(sys.stdin))
+print(json.dumps([{'role': e.get('aria-roledescription'), 'label': e.get('aria-label')} for e in root.iter() if e.get('aria-label') is not None]))
+`,
+    svg,
+  );
+}

@@ -1,6 +1,7 @@
 import { Command } from 'commander';
 import { rankDesignFiles, scoreDesignFiles, type ScoredFile } from '../../actions/score.js';
 import type { CliContext } from '../context.js';
+import { parseWorkers } from '../common.js';
 
 function table(rows: ScoredFile[], withRank: boolean): string {
   const metricNames = [...new Set(rows.flatMap((r) => Object.keys(r.metrics)))];
@@ -18,9 +19,10 @@ export function scoreCommand(ctx: CliContext): Command {
     .description('metrics of one or many design files under an objective recipe')
     .argument('<designs...>', 'design files (lumenfold.design/1)')
     .option('--objective <file>', 'objective recipe (default: the demo recipe)')
+    .option('--workers <n>', 'worker threads sharing out each design\'s disorder samples (default: 1)')
     .option('--json', 'print the result as JSON')
-    .action((files: string[], f: { objective?: string; json?: boolean }) => {
-      const { results } = scoreDesignFiles(files, f.objective);
+    .action(async (files: string[], f: { objective?: string; json?: boolean; workers?: string }) => {
+      const { results } = await scoreDesignFiles(files, f.objective, parseWorkers(f.workers));
       ctx.stdout(f.json ? JSON.stringify(results, null, 2) + '\n' : table(results, false));
     });
 }
@@ -30,9 +32,10 @@ export function rankCommand(ctx: CliContext): Command {
     .description('order design files under an objective recipe (best first; Pareto recipes by non-dominated fronts)')
     .argument('<designs...>', 'design files (lumenfold.design/1)')
     .option('--objective <file>', 'objective recipe (default: the demo recipe)')
+    .option('--workers <n>', 'worker threads sharing out each design\'s disorder samples (default: 1)')
     .option('--json', 'print the result as JSON')
-    .action((files: string[], f: { objective?: string; json?: boolean }) => {
-      const ranked = rankDesignFiles(files, f.objective);
+    .action(async (files: string[], f: { objective?: string; json?: boolean; workers?: string }) => {
+      const ranked = await rankDesignFiles(files, f.objective, parseWorkers(f.workers));
       ctx.stdout(f.json ? JSON.stringify(ranked, null, 2) + '\n' : table(ranked, true));
     });
 }

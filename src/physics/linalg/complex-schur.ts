@@ -1,5 +1,6 @@
 import { NumericalError } from '../../errors.js';
 import type { ComplexMatrix } from './complex-dense.js';
+import { cdiv, csqrt } from './complex-scalar.js';
 
 const ULP = Number.EPSILON;
 const SAFE_MIN = 2.2250738585072014e-308;
@@ -151,23 +152,4 @@ function rotateColumns(re: Float64Array, im: Float64Array, n: number, k: number,
     re[p + 1] = c * yr - (sr * xr - si * xi);
     im[p + 1] = c * yi - (sr * xi + si * xr);
   }
-}
-
-/** Principal square root of a complex number. */
-export function csqrt(r: number, i: number): [number, number] {
-  if (r === 0 && i === 0) return [0, 0];
-  const m = Math.hypot(r, i);
-  const t = Math.sqrt(0.5 * (m + Math.abs(r)));
-  if (r >= 0) return [t, i / (2 * t)];
-  return [Math.abs(i) / (2 * t), i >= 0 ? t : -t];
-}
-
-/** a / b for complex a, b (Smith's algorithm, Comm. ACM 5, 435 (1962)). */
-export function cdiv(ar: number, ai: number, br: number, bi: number): [number, number] {
-  if (Math.abs(br) >= Math.abs(bi)) {
-    const r = bi / br, d = br + bi * r;
-    return [(ar + ai * r) / d, (ai - ar * r) / d];
-  }
-  const r = br / bi, d = bi + br * r;
-  return [(ar * r + ai) / d, (ai * r - ar) / d];
 }
