@@ -84,7 +84,10 @@ function searchCharts(i: ReportInputs): ReportChart[] {
       : { id: 'chart-front', heading: 'Trade-off front', caption: '', missing: 'The objective has a single Pareto metric: there is no front to draw.' });
   } else {
     const caption = `Best objective so far against the number of candidates evaluated (${run.manifest.evaluations} in all; ${run.history.length} met the cheap constraints and were scored by the transport model). Points mark improvements.`;
-    out.push({ id: 'chart-convergence', heading: 'Convergence', caption, spec: convergenceSpec({ convergence: run.manifest.convergence, evaluations: run.manifest.evaluations }, WIDE) });
+    const improved = run.manifest.convergence.some((c) => c.best !== null && Number.isFinite(c.best));
+    out.push(improved
+      ? { id: 'chart-convergence', heading: 'Convergence', caption, spec: convergenceSpec({ convergence: run.manifest.convergence, evaluations: run.manifest.evaluations }, WIDE) }
+      : { id: 'chart-convergence', heading: 'Convergence', caption: '', missing: `No convergence curve: none of the ${run.manifest.evaluations} candidates met the constraints during the search, so the run recorded no best objective.` });
   }
   const { efficiencies, skipped, samples } = i.robustness;
   const d = i.disorder;

@@ -30,10 +30,10 @@ export const PAGE_SCRIPT = `
         viewer.addStyle({ resi: s.id, atom: s.centre }, { sphere: { radius: s.trap ? 1.6 : 1.1, color: s.colour } });
         viewer.addLabel(s.label, { position: s.at, fontSize: 12, fontColor: '#1d1d1f', backgroundColor: '#ffffff', backgroundOpacity: 0.75, showBackground: true, inFront: true });
       });
-      viewer.zoomTo();
-      viewer.render();
+      var fit = function () { viewer.zoomTo(); viewer.zoom(1.7); viewer.render(); };
+      fit();
       host.setAttribute('data-drawn', 'true');
-      document.getElementById('viewer-reset').addEventListener('click', function () { viewer.zoomTo(); viewer.render(); });
+      document.getElementById('viewer-reset').addEventListener('click', fit);
     } catch (e) {
       failed(host, 'the 3-D view', e);
     }

@@ -29,6 +29,7 @@ describe('run charts rendered to SVG by Vega in Node', () => {
       const [, lo, hi, count] = /trapping efficiency: ([\d.]+) – ([\d.]+); disorder samples: (\d+)/.exec(m.label)!;
       return { lo: Number(lo), hi: Number(hi), count: Number(count) };
     });
+    // the bins are Vega's; each bar's count is checked by counting the samples in its interval directly
     expect(bars.reduce((s, b) => s + b.count, 0)).toBe(efficiencies.length);
     for (const b of bars) expect(b.count).toBe(efficiencies.filter((e) => e >= b.lo && e < b.hi).length);
     const rules = svgMarks(svg).filter((m) => m.role === 'rule mark').map((m) => m.label);
@@ -40,6 +41,7 @@ describe('run charts rendered to SVG by Vega in Node', () => {
     const convergence = [{ evaluations: 16, best: null }, { evaluations: 48, best: 1.2 }, { evaluations: 96, best: 1.5 }, { evaluations: 160, best: 1.75 }];
     const svg = await chartSvg(convergenceSpec({ convergence, evaluations: 400 }));
     const marks = svgMarks(svg);
+    // read back from the marks Vega drew (their accessible labels), not from our spec
     expect(marks.filter((m) => m.role === 'point').map((m) => /evaluations: (\d+)/.exec(m.label)![1])).toEqual(['48', '96', '160']);
     expect(marks.find((m) => m.role === 'axis' && m.label.includes("'evaluations'"))!.label).toMatch(/from 0 to 400/);
   });
@@ -60,6 +62,7 @@ describe('numbers recomputed for the report', () => {
   it('the disorder efficiencies give the robust metrics the metrics layer computes with the same draws', () => {
     const d = disorderEfficiencies(design, settings, settings.disorder!);
     const m = computeMetrics(design, settings, ['robust_mean', 'robust_p10']).values;
+    // identity with the metrics layer: same draws (common random numbers), same type-7 quantile (Hyndman and Fan 1996)
     expect(d.efficiencies.length + d.skipped).toBe(objective.disorder.samples);
     expect(quantile(d.efficiencies, 0.1)).toBe(m.robust_p10);
     expect(mean(d.efficiencies)).toBe(m.robust_mean);
@@ -74,9 +77,9 @@ describe('numbers recomputed for the report', () => {
       if (model === 'hsr') expect(source['pure dephasing rate']).toMatchObject({ source: 'default', value: `${TRANSPORT_DEFAULTS.dephasing} ps^-1` });
       if (model !== 'hsr') expect(source.temperature).toMatchObject({ source: 'objective', value: `${objective.model.kind === 'redfield' ? objective.model.temperature : ''} K` });
       const t = md.traces!;
-      // what leaves the excitonic block goes to the sink or is lost: sites + sink + lost = 1 at every time
+      // what leaves the excitonic block goes to the sink or is lost: sites + sink + lost = 1 at every time (CONVENTIONS.md, eta + loss = 1)
       t.times.forEach((_, k) => expect(t.sites[k].reduce((s, p) => s + p, 0) + t.sink[k] + t.lost[k]).toBeCloseTo(1, 9));
-      // the sink only fills, and never above the efficiency (its limit at long times)
+      // the sink only fills, and never above the efficiency, its limit at long times (eta = k_trap * integral of rho_tt, CONVENTIONS.md)
       t.sink.forEach((s, k) => { if (k) expect(s).toBeGreaterThanOrEqual(t.sink[k - 1] - 1e-12); });
       expect(t.sink[t.sink.length - 1]).toBeLessThanOrEqual(md.efficiency! + 1e-9);
       const data = dynamicsData(t, design);
