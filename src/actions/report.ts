@@ -3,7 +3,7 @@
  * run's own objective (disorder samples, population dynamics under each model), and write one
  * self-contained HTML file.
  */
-import { existsSync } from 'node:fs';
+import { existsSync, mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { formatIssue } from '../config/config-error.js';
 import type { ConstraintSet } from '../config/constraints-types.js';
@@ -16,9 +16,10 @@ import { writeFileAtomic } from '../output/atomic.js';
 import { formatPdb } from '../output/pdb.js';
 import { evaluateTransport, type ModelName } from '../physics/transport.js';
 import { reportContent } from '../report/content.js';
+import { standaloneSvgs } from '../report/standalone.js';
 import { modelDynamics } from '../report/dynamics.js';
 import { reportLibraries } from '../report/libraries.js';
-import { reportHtml } from '../report/page.js';
+import { reportHtml, type ReportContent } from '../report/page.js';
 import { disorderEfficiencies } from '../report/robustness.js';
 import { readRunFolder, type RunFolderData } from '../report/run-folder.js';
 import { maxSites, metricSettingsFrom } from './settings.js';
@@ -29,8 +30,10 @@ export interface ReportRequest {
   runFolder: string;
   /** Report file; default RUN_FOLDER/report.html. */
   out?: string;
-  /** Overwrite an existing report. */
+  /** Overwrite an existing report (and existing SVG files). */
   force: boolean;
+  /** Also write every picture and chart as a standalone SVG file into this folder. */
+  svgFolder?: string;
 }
 
 export interface ReportSummary {
@@ -38,6 +41,8 @@ export interface ReportSummary {
   report: string;
   bytes: number;
   designs: number;
+  /** Standalone SVG files written (with svgFolder). */
+  svgFiles: string[];
   /** Parts of the report that could not be drawn, and why. */
   notes: string[];
 }
@@ -62,7 +67,7 @@ function disorderModel(o: Objective): DisorderModel {
 }
 
 /** Write the HTML report of a run folder. */
-export function writeRunReport(req: ReportRequest): ReportSummary {
+export async function writeRunReport(req: ReportRequest): Promise<ReportSummary> {
   const folder = resolve(req.runFolder);
   const run = readRunFolder(folder);
   const out = resolve(req.out ?? join(folder, 'report.html'));
@@ -86,7 +91,7 @@ export function writeRunReport(req: ReportRequest): ReportSummary {
   }
   const dynamics = REPORT_MODELS.map((m) => modelDynamics(best, settings, m));
   for (const d of dynamics) if (d.error) notes.push(`${d.model} dynamics: ${d.error}`);
-  const html = reportHtml(reportContent({
+  const content = reportContent({
     run,
     objective,
     settings,
@@ -98,7 +103,24 @@ export function writeRunReport(req: ReportRequest): ReportSummary {
     libraries: reportLibraries(),
     generated: new Date(),
     toolVersion: VERSION,
-  }));
+  });
+  const svgFiles = req.svgFolder === undefined ? [] : await writeSvgs(resolve(req.svgFolder), content, req.force);
+  const html = reportHtml(content);
   writeFileAtomic(out, html);
-  return { format: 'lumenfold.report-summary/1', report: out, bytes: Buffer.byteLength(html), designs: run.designs.length, notes };
+  return { format: 'lumenfold.report-summary/1', report: out, bytes: Buffer.byteLength(html), designs: run.designs.length, svgFiles, notes };
+}
+
+/** Write the standalone SVG files into a folder (created if needed); refuses to replace files unless forced. */
+async function writeSvgs(folder: string, content: ReportContent, force: boolean): Promise<string[]> {
+  const files = await standaloneSvgs(content);
+  const paths = files.map((f) => join(folder, f.name));
+  const present = paths.filter((p) => existsSync(p));
+  if (present.length && !force) throw new InputError(`${present[0]}: exists; use --force to overwrite the SVG files`, 'exists');
+  try {
+    mkdirSync(folder, { recursive: true });
+  } catch (e) {
+    throw new InputError(`${folder}: cannot create the folder for the SVG files (${(e as NodeJS.ErrnoException).code ?? String(e)})`, 'write-failed');
+  }
+  files.forEach((f, k) => writeFileAtomic(paths[k], f.svg));
+  return paths;
 }

@@ -16,7 +16,7 @@ export const SERIES_COLOURS = ['#2c66b8', '#e0702a', '#3f9a5c', '#a11d33', '#7b4
 const CONFIG = {
   font: 'Helvetica, Arial, sans-serif',
   axis: { labelColor: '#333', titleColor: '#222', gridColor: '#e6e9ee', domainColor: '#555', tickColor: '#555', titleFontWeight: 'normal' },
-  legend: { labelColor: '#333', titleColor: '#222', titleFontWeight: 'bold' },
+  legend: { labelColor: '#333', titleColor: '#222', titleFontWeight: 'bold', labelLimit: 260 },
   title: { anchor: 'start', fontSize: 14, color: '#1d1d1f' },
   view: { stroke: '#d5dae1' },
 } as const;

@@ -1,11 +1,12 @@
 import { cpSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { optimize } from '../../src/actions/optimize.js';
 import { writeRunReport } from '../../src/actions/report.js';
 import { readDesignFile } from '../../src/output/design-file.js';
 import { openFile, pngStatistics, type LoadedPage } from './browser.js';
+import { parseSvg, svgMarks } from './helpers.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'lumenfold-report-test-'));
 const single = join(dir, 'run-robust');
@@ -45,7 +46,7 @@ async function open(file: string): Promise<LoadedPage> {
 
 describe('the HTML run report in a real browser (Debian chromium)', () => {
   it('a single-objective run: loads offline without errors, draws every chart and the 3-D view; the screenshot is not blank', async () => {
-    const summary = writeRunReport({ runFolder: single, force: false });
+    const summary = await writeRunReport({ runFolder: single, force: false });
     expect(summary.report).toBe(join(single, 'report.html'));
     const html = readFileSync(summary.report, 'utf8');
     // one file: no external scripts, styles or images
@@ -81,7 +82,7 @@ describe('the HTML run report in a real browser (Debian chromium)', () => {
 
   it('a multi-objective run shows the trade-off front instead of a convergence curve', async () => {
     const out = join(dir, 'front-report.html');
-    writeRunReport({ runFolder: front, out, force: false });
+    await writeRunReport({ runFolder: front, out, force: false });
     const o = await open(out);
     expect(o.errors).toEqual([]);
     expect(o.network).toEqual([]);
@@ -93,17 +94,30 @@ describe('the HTML run report in a real browser (Debian chromium)', () => {
     expect(await o.page.locator('#chart-front [aria-roledescription="point"]').count()).toBe(ranked);
   });
 
-  it('says so instead of drawing an empty curve when no candidate met the constraints during the search', () => {
+  it('says so instead of drawing an empty curve when no candidate met the constraints during the search', async () => {
     const copy = join(dir, 'run-none-feasible');
     cpSync(single, copy, { recursive: true });
     const m = JSON.parse(readFileSync(join(copy, 'manifest.json'), 'utf8'));
     writeFileSync(join(copy, 'manifest.json'), JSON.stringify({ ...m, convergence: [{ evaluations: 16, best: null }] }));
-    const html = readFileSync(writeRunReport({ runFolder: copy, force: true }).report, 'utf8');
+    const html = readFileSync((await writeRunReport({ runFolder: copy, force: true })).report, 'utf8');
     expect(html).toMatch(/<p class="note" id="chart-convergence">No convergence curve: none of the \d+ candidates met the constraints/);
   });
 
-  it('refuses to overwrite a report without --force, and overwrites with it', () => {
-    expect(() => writeRunReport({ runFolder: single, force: false })).toThrow(/report\.html: exists; use --force/);
-    expect(writeRunReport({ runFolder: single, force: true }).bytes).toBeGreaterThan(100_000);
+  it('refuses to overwrite a report without --force, and overwrites with it', async () => {
+    await expect(writeRunReport({ runFolder: single, force: false })).rejects.toThrow(/report\.html: exists; use --force/);
+    expect((await writeRunReport({ runFolder: single, force: true })).bytes).toBeGreaterThan(100_000);
+  });
+
+  it('writes every picture and chart as standalone, well-formed SVG without a browser', async () => {
+    const folder = join(dir, 'svg');
+    const s = await writeRunReport({ runFolder: single, out: join(dir, 'with-svg.html'), svgFolder: folder, force: false });
+    const names = s.svgFiles.map((f) => basename(f)).sort();
+    expect(names).toEqual(['chart-convergence.svg', 'chart-dynamics-forster.svg', 'chart-dynamics-hsr.svg', 'chart-dynamics-redfield.svg', 'chart-robustness.svg', 'picture-array.svg', 'picture-levels.svg']);
+    for (const f of s.svgFiles) expect(parseSvg(readFileSync(f, 'utf8')).root, f).toBe('svg');
+    // the histogram holds every disorder sample of the objective
+    const samples = JSON.parse(readFileSync(join(single, 'manifest.json'), 'utf8')).configs.objective.resolved.disorder.samples as number;
+    const bars = svgMarks(readFileSync(join(folder, 'chart-robustness.svg'), 'utf8')).filter((m) => m.role === 'bar');
+    expect(bars.reduce((n, b) => n + Number(/disorder samples: (\d+)/.exec(b.label)![1]), 0)).toBe(samples);
+    await expect(writeRunReport({ runFolder: single, out: join(dir, 'with-svg-2.html'), svgFolder: folder, force: false })).rejects.toThrow(/picture-array\.svg: exists; use --force/);
   });
 });

@@ -9,12 +9,15 @@ export function reportCommand(ctx: CliContext): Command {
     .argument('<run-folder>', 'run folder written by lumenfold optimize')
     .option('--out <file>', 'report file (default: RUN_FOLDER/report.html)')
     .option('--force', 'overwrite an existing report')
-    .option('--allow-outside', 'allow --out to point outside the working folder')
+    .option('--svg <folder>', 'also write every picture and chart as a standalone SVG file into this folder')
+    .option('--allow-outside', 'allow --out and --svg to point outside the working folder')
     .option('--json', 'print the result as JSON on stdout')
-    .action((folder: string, f: { out?: string; force?: boolean; allowOutside?: boolean; json?: boolean }) => {
+    .action(async (folder: string, f: { out?: string; svg?: string; force?: boolean; allowOutside?: boolean; json?: boolean }) => {
       const out = f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside));
-      const s = writeRunReport({ runFolder: folder, out, force: Boolean(f.force) });
+      const svgFolder = f.svg === undefined ? undefined : outputPath('--svg', f.svg, Boolean(f.allowOutside));
+      const s = await writeRunReport({ runFolder: folder, out, svgFolder, force: Boolean(f.force) });
       for (const n of s.notes) ctx.stderr(`note: ${n}\n`);
-      ctx.stdout(f.json ? JSON.stringify(s, null, 2) + '\n' : `report  ${s.report} (${Math.round(s.bytes / 1024)} kB, ${s.designs} ranked designs)\n`);
+      const svgs = s.svgFiles.length ? `svg     ${s.svgFiles.length} files in ${f.svg}\n` : '';
+      ctx.stdout(f.json ? JSON.stringify(s, null, 2) + '\n' : `report  ${s.report} (${Math.round(s.bytes / 1024)} kB, ${s.designs} ranked designs)\n${svgs}`);
     });
 }
