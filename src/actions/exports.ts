@@ -5,8 +5,10 @@ import { formatDesignFile } from '../output/design-file.js';
 import { formatPdb } from '../output/pdb.js';
 import type { DesignRecord } from '../output/record.js';
 import { formatXyz } from '../output/xyz.js';
+import { arraySvg } from '../report/array-svg.js';
+import { levelsSvg } from '../report/levels-svg.js';
 
-export const EXPORT_FORMATS = ['json', 'xyz', 'pdb', 'csv', 'hamiltonian', 'couplings', 'anchors'] as const;
+export const EXPORT_FORMATS = ['json', 'xyz', 'pdb', 'csv', 'hamiltonian', 'couplings', 'anchors', 'svg-array', 'svg-levels'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 /** The text of a design in one export format; couplings use `system` (default: automatic dipole model, vacuum). */
@@ -18,6 +20,8 @@ export function exportDesign(r: DesignRecord, format: ExportFormat, system: Metr
     case 'csv': return siteTableCsv(r);
     case 'hamiltonian': return hamiltonianCsv(r, system);
     case 'couplings': return couplingTableCsv(r, system);
+    case 'svg-array': return arraySvg(r, { system });
+    case 'svg-levels': return levelsSvg(r, { system });
     case 'anchors':
       if (!r.anchors) throw new InputError(`design '${r.name}' has no anchors: the anchor map is for lattice or anchor-list scaffolds`);
       return anchorMapCsv(r);

@@ -4,6 +4,7 @@ import { checkCommand } from './commands/check.js';
 import { exportCommand } from './commands/export.js';
 import { optimizeCommand } from './commands/optimize.js';
 import { rankCommand, scoreCommand } from './commands/score.js';
+import { reportCommand } from './commands/report.js';
 import { simulateCommand } from './commands/simulate.js';
 import { sweepCommand } from './commands/sweep.js';
 import type { CliContext } from './context.js';
@@ -29,7 +30,7 @@ export function buildProgram(ctx: CliContext): Command {
     .showHelpAfterError(false)
     .exitOverride()
     .configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr });
-  for (const make of [optimizeCommand, scoreCommand, rankCommand, sweepCommand, exportCommand, checkCommand, simulateCommand]) program.addCommand(make(ctx).exitOverride().configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr }));
+  for (const make of [optimizeCommand, scoreCommand, rankCommand, sweepCommand, exportCommand, checkCommand, simulateCommand, reportCommand]) program.addCommand(make(ctx).exitOverride().configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr }));
   return program;
 }
 
