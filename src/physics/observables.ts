@@ -12,6 +12,13 @@ export interface TransportResult {
   readonly transferTime: number;
   /** |eta + loss - 1|, the invariant's residual (a check of the solve). */
   readonly balanceResidual: number;
+  /**
+   * Which solver produced the numbers: 'dense' (LU of the assembled generator: N^2 x N^2 for hsr and redfield,
+   * the N x N rate matrix for forster) or 'structured' (the O(N^4) hsr solver of physics/fast/).
+   */
+  readonly solver: 'dense' | 'structured';
+  /** Why the dense solver ran although TransportOptions.solver was 'auto' (the structured check that failed). */
+  readonly fallbackReason?: string;
 }
 
 function dot(a: Float64Array, b: Float64Array): number {
@@ -41,5 +48,5 @@ export function trappingObservables(m: LinearModel): TransportResult {
       'ill-conditioned',
     );
   }
-  return { efficiency, lossFraction, transferTime, balanceResidual };
+  return { efficiency, lossFraction, transferTime, balanceResidual, solver: 'dense' };
 }

@@ -1,7 +1,9 @@
-import { InputError } from '../errors.js';
+import { InputError, NumericalError } from '../errors.js';
 import { withDefaults } from '../options.js';
 import { propagate, type PopulationTraces } from './dynamics.js';
 import { excitons, type Excitons } from './excitons.js';
+import { evaluateHsrStructured } from './fast/hsr-evaluate.js';
+import { STRUCTURED_UNAVAILABLE } from './fast/hsr-structured.js';
 import type { LinearModel, Start } from './models/common.js';
 import { forsterModel } from './models/forster.js';
 import { hsrModel } from './models/hsr.js';
@@ -30,7 +32,24 @@ export interface TransportOptions {
   secularFraction: number;
   /** Initial excitation. Default: uniform over the donor (non-trap) sites. */
   start: Start;
+  /**
+   * How efficiency and transfer time are solved. Default 'auto'.
+   * - 'dense': LU of the assembled generator (O(N^6) time, O(N^4) memory for hsr and redfield).
+   * - 'structured': the O(N^4)-time, O(N^3)-memory solver of physics/fast/ (hsr only); a NumericalError
+   *   (code 'structured-unavailable') when its checks fail (ill-conditioned eigenvectors, residual, balance).
+   * - 'auto': structured where the model has it and its checks pass, otherwise dense; the result says which
+   *   ran (TransportResult.solver) and why it fell back (fallbackReason). A fallback is refused above
+   *   MAX_DENSE_FALLBACK_SITES sites, where the dense solve would take minutes and gigabytes.
+   * forster is an N x N rate problem: its dense solve is already O(N^3) and it has no other.
+   */
+  solver: SolverChoice;
 }
+
+export type SolverChoice = 'auto' | 'dense' | 'structured';
+const SOLVERS: readonly SolverChoice[] = ['auto', 'dense', 'structured'];
+
+/** Largest array the 'auto' solver falls back to the dense solve for (a 1600 x 1600 generator, about 2 s). */
+export const MAX_DENSE_FALLBACK_SITES = 40;
 
 export const TRANSPORT_DEFAULTS: TransportOptions = {
   model: 'hsr',
@@ -40,13 +59,23 @@ export const TRANSPORT_DEFAULTS: TransportOptions = {
   cutoff: 100,
   secularFraction: 0.1,
   start: { kind: 'donors' },
+  solver: 'auto',
 };
 
 type Builder = (sys: ExcitonSystem, o: TransportOptions, ex: () => Excitons) => LinearModel;
+type Structured = (sys: ExcitonSystem, o: TransportOptions, ex: () => Excitons) => Omit<TransportResult, 'solver' | 'fallbackReason'>;
+
+interface ModelEntry {
+  readonly summary: string;
+  readonly finiteTemperature: boolean;
+  readonly build: Builder;
+  /** The structured solver of efficiency and transfer time, where the model has one. */
+  readonly structured?: Structured;
+}
 
 /** The transport models by name. */
-export const MODELS: Readonly<Record<ModelName, { readonly summary: string; readonly finiteTemperature: boolean; readonly build: Builder }>> = {
-  hsr: { summary: 'Haken-Strobl-Reineker pure dephasing (infinite temperature)', finiteTemperature: false, build: hsrModel },
+export const MODELS: Readonly<Record<ModelName, ModelEntry>> = {
+  hsr: { summary: 'Haken-Strobl-Reineker pure dephasing (infinite temperature)', finiteTemperature: false, build: hsrModel, structured: evaluateHsrStructured },
   redfield: { summary: 'secular Bloch-Redfield theory, Drude-Lorentz site baths', finiteTemperature: true, build: redfieldModel },
   forster: { summary: 'incoherent Foerster hopping (classical baseline)', finiteTemperature: true, build: forsterModel },
 };
@@ -57,6 +86,7 @@ export function transportOptions(given?: Partial<TransportOptions>): TransportOp
   if (!Object.hasOwn(MODELS, o.model)) {
     throw new InputError(`unknown transport model '${String(o.model)}' (available: ${Object.keys(MODELS).join(', ')})`);
   }
+  if (!SOLVERS.includes(o.solver)) throw new InputError(`unknown transport solver '${String(o.solver)}' (available: ${SOLVERS.join(', ')})`);
   return o;
 }
 
@@ -71,7 +101,27 @@ export function buildModel(sys: ExcitonSystem, given?: Partial<TransportOptions>
 /** Trapping efficiency, loss fraction and mean transfer time of a system under a model. */
 export function evaluateTransport(sys: ExcitonSystem, given?: Partial<TransportOptions>): TransportResult {
   if (sys.traps.length === 0) throw new InputError('trapping efficiency needs at least one trap site');
-  return trappingObservables(buildModel(sys, given));
+  const o = transportOptions(given);
+  let ex: Excitons | undefined;
+  const lazy = () => (ex ??= excitons(sys));
+  const entry = MODELS[o.model];
+  let fallbackReason: string | undefined;
+  if (o.solver !== 'dense' && entry.structured) {
+    try {
+      const r = entry.structured(sys, o, lazy);
+      return { efficiency: r.efficiency, lossFraction: r.lossFraction, transferTime: r.transferTime, balanceResidual: r.balanceResidual, solver: 'structured' };
+    } catch (e) {
+      if (!(e instanceof NumericalError && e.code === STRUCTURED_UNAVAILABLE) || o.solver === 'structured') throw e;
+      fallbackReason = e.message;
+      if (sys.n > MAX_DENSE_FALLBACK_SITES) {
+        throw new NumericalError(`the structured ${o.model} solver cannot vouch for this ${sys.n}-site array (${fallbackReason}), and the dense fallback is limited to ${MAX_DENSE_FALLBACK_SITES} sites; pass solver 'dense' to force it`, 'ill-conditioned');
+      }
+    }
+  } else if (o.solver === 'structured') {
+    throw new InputError(`the ${o.model} model has no structured solver (only hsr has one); use solver 'auto' or 'dense'`);
+  }
+  const r = trappingObservables(entry.build(sys, o, lazy));
+  return fallbackReason === undefined ? r : { ...r, fallbackReason };
 }
 
 /** Population traces at the given times (ps) by exact propagation. */

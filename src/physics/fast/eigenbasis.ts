@@ -1,0 +1,165 @@
+import type { ComplexMatrix } from '../linalg/complex-dense.js';
+
+/**
+ * The eigenbasis of A0 = -i H - K/2 = V Lambda0 V^-1 with V^-1 = V^T (A0 is complex symmetric), and the
+ * packed tables the structured hsr solver works with. The Lyapunov part of the generator is
+ * L0(X) = A X + X A^H with A = A0 - (gamma/2) I, so in the eigenbasis L0 multiplies entry ij by
+ * lambda0_i + conj(lambda0_j) - gamma.
+ *
+ * A Hermitian N x N matrix Y in the eigenbasis is packed into N^2 reals: Y_ii at [i], then for each pair
+ * i < j (row-major order of the upper triangle, pair p) Re Y_ij at [N + 2p] and Im Y_ij at [N + 2p + 1].
+ * With U_k,ij = V_ki conj(V_kj):
+ *   u[k] = (|V_ki|^2; 2 Re U_k,ij, -2 Im U_k,ij)  so that  u[k] . Y = [V Y V^H]_kk,
+ *   q_m  = (|V_mi|^2; Re U_m,ij, Im U_m,ij)        is W E_mm W^H packed (W = V^T),
+ *   G_ij = 1 / (lambda0_i + conj(lambda0_j) - gamma)   (L0^-1 in the eigenbasis),
+ *   F_ij = (lambda0_i + conj(lambda0_j)) G_ij = 1 + gamma G_ij,
+ *   z[m] = F o q_m,  so that  u[k] . z[m] = [I + gamma M]_km,  M_km = [L0^-1(E_mm)]_kk.
+ * F is formed from lambda0 directly, not as 1 + gamma G: under strong dephasing I + gamma M is a small
+ * difference of order-one numbers, and 1 + gamma G would carry an absolute error of eps in every entry.
+ * (Summing the first two orders of F in 1/gamma in closed form was tried and gained nothing measurable
+ * up to gamma = 1e5 ps^-1 against a 40-digit reference.)
+ */
+export interface Eigenbasis {
+  readonly n: number;
+  readonly vectors: ComplexMatrix;
+  /** G packed like a Hermitian matrix (G_ji = conj(G_ij)). */
+  readonly g: Float64Array;
+  /** u rows, N x N^2 row-major. */
+  readonly u: Float64Array;
+  /** z rows, N x N^2 row-major. */
+  readonly z: Float64Array;
+  /** Smallest |lambda_i + conj(lambda_j)| relative to max |lambda| + gamma: how close L0 is to singular. */
+  readonly gapRatio: number;
+}
+
+/** Build the packed tables from eigenvalues of A0 and V^T-orthonormal eigenvectors. O(N^3). */
+export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vectors: ComplexMatrix, gamma: number): Eigenbasis {
+  const { n, re: vr, im: vi } = vectors;
+  const len = n * n;
+  const g = new Float64Array(len), f = new Float64Array(len);
+  let minGap = Infinity, maxLam = 0;
+  for (let i = 0; i < n; i++) {
+    maxLam = Math.max(maxLam, Math.hypot(valuesRe[i], valuesIm[i]));
+    const s = 2 * valuesRe[i];
+    const d = s - gamma;
+    minGap = Math.min(minGap, Math.abs(d));
+    g[i] = 1 / d;
+    f[i] = s / d;
+  }
+  let p = n;
+  for (let i = 0; i < n; i++) {
+    for (let j = i + 1; j < n; j++, p += 2) {
+      // s = lambda0_i + conj(lambda0_j), G = 1 / (s - gamma), F = s G
+      const sr = valuesRe[i] + valuesRe[j], si = valuesIm[i] - valuesIm[j];
+      const ar = sr - gamma;
+      const d = ar * ar + si * si;
+      minGap = Math.min(minGap, Math.sqrt(d));
+      const gr = ar / d, gi = -si / d;
+      g[p] = gr; g[p + 1] = gi;
+      f[p] = sr * gr - si * gi; f[p + 1] = sr * gi + si * gr;
+    }
+  }
+  const u = new Float64Array(n * len), z = new Float64Array(n * len);
+  for (let k = 0; k < n; k++) {
+    const rk = k * n, o = k * len;
+    for (let i = 0; i < n; i++) {
+      const a = vr[rk + i] * vr[rk + i] + vi[rk + i] * vi[rk + i];
+      u[o + i] = a;
+      z[o + i] = a * f[i];
+    }
+    let q = o + n, t = n;
+    for (let i = 0; i < n; i++) {
+      const ar = vr[rk + i], ai = vi[rk + i];
+      for (let j = i + 1; j < n; j++, q += 2, t += 2) {
+        // U = V_ki conj(V_kj)
+        const br = vr[rk + j], bi = vi[rk + j];
+        const ur = ar * br + ai * bi, ui = ai * br - ar * bi;
+        u[q] = 2 * ur;
+        u[q + 1] = -2 * ui;
+        const fr = f[t], fi = f[t + 1];
+        z[q] = fr * ur - fi * ui;
+        z[q + 1] = fr * ui + fi * ur;
+      }
+    }
+  }
+  return { n, vectors, g, u, z, gapRatio: minGap / (maxLam + gamma) };
+}
+
+/** [V Y V^H]_kk for every k: u Y (N^3). */
+export function siteDiagonal(e: Eigenbasis, y: Float64Array, out = new Float64Array(e.n)): Float64Array {
+  const { n, u } = e;
+  const len = n * n;
+  for (let k = 0; k < n; k++) {
+    const o = k * len;
+    let s0 = 0, s1 = 0;
+    let i = 0;
+    for (; i + 1 < len; i += 2) { s0 += u[o + i] * y[i]; s1 += u[o + i + 1] * y[i + 1]; }
+    if (i < len) s0 += u[o + i] * y[i];
+    out[k] = s0 + s1;
+  }
+  return out;
+}
+
+/** Packed W diag(w) W^H = sum_m w_m q_m (N^3; zero weights are skipped). */
+export function diagonalInEigenbasis(e: Eigenbasis, w: ArrayLike<number>, out = new Float64Array(e.n * e.n)): Float64Array {
+  const { n, u } = e;
+  const len = n * n;
+  out.fill(0);
+  for (let m = 0; m < n; m++) {
+    const c = w[m];
+    if (c === 0) continue;
+    const o = m * len;
+    for (let i = 0; i < len; i++) out[i] += c * u[o + i];
+  }
+  // u carries (1; 2, -2) times q
+  for (let i = n; i < len; i += 2) { out[i] *= 0.5; out[i + 1] *= -0.5; }
+  return out;
+}
+
+/** y <- G o y on packed Hermitian matrices. */
+export function multiplyByG(e: Eigenbasis, y: Float64Array): Float64Array {
+  const { n, g } = e;
+  const len = n * n;
+  for (let i = 0; i < n; i++) y[i] *= g[i];
+  for (let p = n; p < len; p += 2) {
+    const yr = y[p], yi = y[p + 1], gr = g[p], gi = g[p + 1];
+    y[p] = gr * yr - gi * yi;
+    y[p + 1] = gr * yi + gi * yr;
+  }
+  return y;
+}
+
+/** Packed W B W^H = V^T B conj(V) for a real symmetric B (row-major N x N). */
+export function symmetricInEigenbasis(e: Eigenbasis, b: Float64Array): Float64Array {
+  const { n } = e;
+  let diagonal = true;
+  for (let i = 0; i < n && diagonal; i++) for (let j = 0; j < n; j++) if (i !== j && b[i * n + j] !== 0) { diagonal = false; break; }
+  if (diagonal) return diagonalInEigenbasis(e, Float64Array.from({ length: n }, (_, i) => b[i * n + i]));
+  const { re: vr, im: vi } = e.vectors;
+  // T = V^T B: T_ik = sum_m V_mi B_mk
+  const tr = new Float64Array(n * n), ti = new Float64Array(n * n);
+  for (let m = 0; m < n; m++) {
+    for (let i = 0; i < n; i++) {
+      const ar = vr[m * n + i], ai = vi[m * n + i];
+      const ri = i * n, rm = m * n;
+      for (let k = 0; k < n; k++) { const bb = b[rm + k]; tr[ri + k] += ar * bb; ti[ri + k] += ai * bb; }
+    }
+  }
+  // Y_ij = sum_k T_ik conj(V_kj) for i <= j
+  const out = new Float64Array(n * n);
+  let p = n;
+  for (let i = 0; i < n; i++) {
+    const ri = i * n;
+    for (let j = i; j < n; j++) {
+      let sr = 0, si = 0;
+      for (let k = 0; k < n; k++) {
+        const ar = tr[ri + k], ai = ti[ri + k], br = vr[k * n + j], bi = -vi[k * n + j];
+        sr += ar * br - ai * bi;
+        si += ar * bi + ai * br;
+      }
+      if (j === i) out[i] = sr;
+      else { out[p] = sr; out[p + 1] = si; p += 2; }
+    }
+  }
+  return out;
+}
