@@ -5,7 +5,7 @@ import type { Progress } from '../search/core/types.js';
 import { InterruptedError } from '../errors.js';
 import { createRunFolder, LOCK_FILE, writeFileAtomic } from '../output/atomic.js';
 import { acquireLock } from '../output/run-lock.js';
-import { executeJobInFolder, readJob } from './execute.js';
+import { executeJobInFolder, readJob, readJobFile } from './execute.js';
 import { formatDesignFile } from '../output/design-file.js';
 import { exportDesign } from './exports.js';
 import { rankingCsv } from '../output/csv.js';
@@ -27,6 +27,8 @@ export interface OptimizeRequest {
   /** Run folder; default designs/runs/<name>-<job id>. */
   out?: string;
   force: boolean;
+  /** Run this job file (configs and search settings in one record, as a sweep plan writes them). */
+  jobFile?: string;
   /** Continue the interrupted run in this folder (its job and seed). */
   resume?: string;
   /** Polled after every batch; true stops the run with a checkpoint. */
@@ -58,6 +60,10 @@ export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
     folder = resolve(req.resume);
     job = readJob(folder);
     lock = acquireLock(join(folder, LOCK_FILE));
+  } else if (req.jobFile) {
+    job = readJobFile(req.jobFile);
+    folder = resolve(req.out ?? join('designs', 'runs', `${job.label}-${job.id}`));
+    lock = createRunFolder(folder, { force: req.force });
   } else {
     const p = loadDesignProblem(req.constraintsFile, req.objectiveFile);
     files = p.files;

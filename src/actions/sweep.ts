@@ -8,8 +8,7 @@ import { writeFileAtomic } from '../output/atomic.js';
 import { formatCsv } from '../output/csv.js';
 import { checkSatisfiable } from './load-configs.js';
 import { makeJob, searchSettings } from './job.js';
-import { CHECKPOINT_FILE, executeJobInFolder } from './execute.js';
-import { toRecord } from './records.js';
+import { CHECKPOINT_FILE, executeJobInFolder, RESULT_FILE, type JobResult } from './execute.js';
 
 export interface SweepRequest {
   sweepFile: string;
@@ -17,22 +16,17 @@ export interface SweepRequest {
   seed?: number;
   budget?: number;
   workers: number;
+  /** Only write each point's job.json (for a runner elsewhere: lumenfold optimize --job FILE --out FOLDER). */
+  planOnly?: boolean;
   /** Polled after every batch; true stops the sweep with a checkpoint in the current point's folder. */
   shouldStop?: () => boolean;
-  onPoint?: (i: number, total: number, label: string, status: 'skipped' | 'running' | 'resuming' | 'done') => void;
+  onPoint?: (i: number, total: number, label: string, status: 'skipped' | 'planned' | 'running' | 'resuming' | 'done') => void;
 }
 
-export interface SweepPointResult {
-  format: 'lumenfold.sweep-point/1';
+/** A sweep point's result: the job's result plus where it sits in the sweep. */
+export interface SweepPointResult extends JobResult {
   index: number;
-  id: string;
-  label: string;
   point: Record<string, unknown>;
-  best_score: number | null;
-  naive_score: number | null;
-  metrics: Record<string, number>;
-  evaluations: number;
-  seconds: number;
 }
 
 /**
@@ -53,10 +47,17 @@ export async function sweep(req: SweepRequest): Promise<{ folder: string; points
     for (const j of jobs) {
       const job = made[j.index];
       const dir = join(folder, `${String(j.index).padStart(3, '0')}-${job.id}`);
-      const resultFile = join(dir, 'result.json');
+      const resultFile = join(dir, RESULT_FILE);
+      const place = { index: j.index, point: j.point };
       if (existsSync(resultFile)) {
         req.onPoint?.(j.index, jobs.length, j.label, 'skipped');
-        points.push({ ...(JSON.parse(readFileSync(resultFile, 'utf8')) as SweepPointResult), status: 'skipped' });
+        points.push({ ...(JSON.parse(readFileSync(resultFile, 'utf8')) as JobResult), ...place, status: 'skipped' });
+        continue;
+      }
+      if (req.planOnly) {
+        mkdirSync(dir, { recursive: true });
+        writeFileAtomic(join(dir, 'job.json'), JSON.stringify(job, null, 2) + '\n');
+        req.onPoint?.(j.index, jobs.length, j.label, 'planned');
         continue;
       }
       const resuming = existsSync(join(dir, CHECKPOINT_FILE));
@@ -66,17 +67,10 @@ export async function sweep(req: SweepRequest): Promise<{ folder: string; points
       if (outcome.stopped) {
         throw new InterruptedError(`sweep interrupted at point ${j.index + 1} of ${jobs.length} (${j.label}); a checkpoint is in ${dir}; run the same sweep again to continue`);
       }
-      const best = outcome.ranked[0];
-      const result: SweepPointResult = {
-        format: 'lumenfold.sweep-point/1', index: j.index, id: job.id, label: j.label, point: j.point,
-        best_score: best?.score ?? null, naive_score: outcome.naive?.score ?? null,
-        metrics: best ? (toRecord(best, j.label, {}).metrics as Record<string, number>) : {},
-        evaluations: outcome.evaluations, seconds: outcome.seconds,
-      };
-      writeFileAtomic(resultFile, JSON.stringify(result, null, 2) + '\n');
       req.onPoint?.(j.index, jobs.length, j.label, 'done');
-      points.push({ ...result, status: 'done' });
+      points.push({ ...(JSON.parse(readFileSync(resultFile, 'utf8')) as JobResult), ...place, status: 'done' });
     }
+    if (req.planOnly) return { folder, points };
     const metricNames = [...new Set(points.flatMap((p) => Object.keys(p.metrics)))];
     const axes = [...new Set(points.flatMap((p) => Object.keys(p.point)))];
     writeFileAtomic(join(folder, 'summary.csv'), formatCsv(

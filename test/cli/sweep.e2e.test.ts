@@ -39,4 +39,27 @@ describe('lumenfold sweep', () => {
     expect(job.format).toBe('lumenfold.job/1');
     expect(job.objective.model.temperature).toBe(150);
   });
+  it('--plan writes self-contained jobs that another runner executes with optimize --job, and the sweep collects them', () => {
+    const planned = join(dir, 'planned');
+    const plan = runCli(['sweep', sweepFile, '--budget', '120', '--out', planned, '--plan', '--json']);
+    expect(plan.code, plan.stderr).toBe(0);
+    const folders = readdirSync(planned).filter((f) => /^\d{3}-/.test(f)).sort();
+    expect(folders).toHaveLength(2);
+    // "the cluster": run the first job on its own
+    const job = join(planned, folders[0], 'job.json');
+    const ran = runCli(['optimize', '--job', job, '--out', join(planned, folders[0]), '--force', '--json']);
+    expect(ran.code, ran.stderr).toBe(0);
+    const collected = JSON.parse(runCli(['sweep', sweepFile, '--budget', '120', '--out', planned, '--json']).stdout);
+    expect(collected.points.map((p: { status: string }) => p.status)).toEqual(['skipped', 'done']);
+    // the same job gives the same result wherever it runs
+    const direct = JSON.parse(readFileSync(join(out, readdirSync(out).filter((f) => f.startsWith('000-'))[0], 'result.json'), 'utf8'));
+    expect(collected.points[0].best_score).toBe(direct.best_score);
+    // an edited job is refused
+    const edited = JSON.parse(readFileSync(job, 'utf8'));
+    edited.search.budget = 7;
+    writeFileSync(join(dir, 'edited.job.json'), JSON.stringify(edited));
+    const r = runCli(['optimize', '--job', join(dir, 'edited.job.json'), '--out', join(dir, 'edited-run')]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/\/id: the job was changed/);
+  });
 });

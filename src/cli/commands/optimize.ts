@@ -5,6 +5,7 @@ import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
 import { progressBar } from '../progress.js';
 import { withStopSignals } from '../signals.js';
+import { InputError } from '../../errors.js';
 import { outputPath } from '../paths.js';
 
 interface OptimizeFlags extends CommonFlags {
@@ -15,6 +16,7 @@ interface OptimizeFlags extends CommonFlags {
   batch?: string;
   top?: string;
   resume?: string;
+  job?: string;
 }
 
 export function optimizeCommand(ctx: CliContext): Command {
@@ -26,12 +28,19 @@ export function optimizeCommand(ctx: CliContext): Command {
     .option('--budget <n>', 'number of candidate designs to evaluate')
     .option('--batch <n>', 'candidates asked and evaluated together')
     .option('--top <n>', 'number of ranked designs to keep', '5')
-    .option('--resume <run-folder>', 'continue an interrupted run from its checkpoint (same job and seed)');
+    .option('--resume <run-folder>', 'continue an interrupted run from its checkpoint (same job and seed)')
+    .option('--job <file>', 'run one job file (configs and search settings, e.g. from sweep --plan) instead of --constraints/--objective');
   addCommonOptions(cmd, { out: 'run folder (default designs/runs/<name>-<id>)', force: true });
   return cmd.action(async (f: OptimizeFlags) => {
+    const sources = [f.resume && '--resume', f.job && '--job', (f.constraints || f.objective) && '--constraints/--objective'].filter(Boolean);
+    if (sources.length > 1) throw new InputError(`give one of ${sources.join(', ')}, not several`);
+    if ((f.resume || f.job) && (f.optimizer || f.budget || f.batch || f.seed)) {
+      throw new InputError('--optimizer, --budget, --batch and --seed come from the job when --resume or --job is given');
+    }
     let bar: ReturnType<typeof progressBar> | undefined;
     const s = await withStopSignals(ctx, (shouldStop) => optimize({
       resume: f.resume,
+      jobFile: f.job,
       shouldStop,
       constraintsFile: f.constraints,
       objectiveFile: f.objective,

@@ -10,11 +10,13 @@ export function sweepCommand(ctx: CliContext): Command {
   const cmd = new Command('sweep')
     .description('one optimization per point of a sweep file, with a summary table; finished points are skipped when run again')
     .argument('<sweep-file>', 'sweep file (lumenfold.sweep/1)')
-    .option('--budget <n>', 'candidate designs per point (default: each objective\'s)');
+    .option('--budget <n>', 'candidate designs per point (default: each objective\'s)')
+    .option('--plan', 'only write each point\'s job.json (run one elsewhere with: lumenfold optimize --job FILE --out ITS_FOLDER --force)');
   addCommonOptions(cmd, { out: 'sweep folder (default designs/sweeps/<name>)' });
-  return cmd.action(async (file: string, f: CommonFlags & { budget?: string }) => {
+  return cmd.action(async (file: string, f: CommonFlags & { budget?: string; plan?: boolean }) => {
     const r = await withStopSignals(ctx, (shouldStop) => sweep({
       shouldStop,
+      planOnly: Boolean(f.plan),
       sweepFile: file,
       out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),
       seed: parseSeed(f.seed),
