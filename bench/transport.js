@@ -1,6 +1,9 @@
-// Transport benchmark: time per evaluation (efficiency + transfer time) for N = 7, 16, 32, 64 and each model,
-// side by side in one run with a dense Liouvillian solve in numpy and QuTiP's construction on the same problem
-// (bench/reference_timing.py, Debian's python3). Ratios are numpy time / lumenfold time.
+// Transport benchmark: time per evaluation (efficiency + transfer time) for N = 7, 16, 32, 64, 128, side by side
+// in one run: lumenfold's structured hsr solver, lumenfold's dense hsr solve (up to N = 32), a dense Liouvillian
+// solve in numpy and QuTiP's construction with a sparse LU on the same problem (bench/reference_timing.py with
+// Debian's python3), plus redfield and forster; then the fitted exponent of the structured solver's cost in N
+// (least squares on log-log over N = 16..128) and the peak memory of a fresh process for N = 100 and 128.
+// Ratios are reference time / lumenfold structured time.
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -8,6 +11,10 @@ import { join } from 'node:path';
 import { evaluateTransport, systemFromHamiltonian } from '../dist/physics/index.js';
 
 const PYTHON = '/usr/bin/python3';
+/** Largest N for lumenfold's dense hsr and redfield solves (N = 64 is a 4096 x 4096 LU: about a minute). */
+const DENSE_MAX_N = 32;
+/** Skip a python method whose run is predicted (N^6 from the last measured size) to take longer than this. */
+const PYTHON_MAX_S = 60;
 
 function rng(seed) {
   let a = seed >>> 0;
@@ -31,8 +38,14 @@ export function randomCase(n) {
   return { hamiltonian_cm: H, trap_sites: [n - 1], trap_rate_ps: 1, loss_rate_ps: 0.001, dephasing_ps: 10, start_site: 0 };
 }
 
-/** Median time (ms) of fn over repeats that fill about budgetMs (at least one, at most 2000). */
+/**
+ * Median time (ms) of fn over repeats that fill about budgetMs (at least one, at most 2000), after a warm-up
+ * of about a quarter of the budget so that the JIT has compiled the hot path (V8 optimizes a function only
+ * after many calls; a 7-site evaluation runs some ten thousand times before it is measured).
+ */
 export function timeIt(fn, budgetMs = 1000) {
+  const start = performance.now();
+  while (performance.now() - start < budgetMs / 4) fn();
   const first = performance.now();
   fn();
   const once = performance.now() - first;
@@ -52,42 +65,97 @@ function pythonTimes(c) {
   const file = join(dir, 'case.json');
   writeFileSync(file, JSON.stringify(c));
   try {
-    const out = execFileSync(PYTHON, ['bench/reference_timing.py', '--case-json', file], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'], timeout: 600_000 });
+    const out = execFileSync(PYTHON, ['bench/reference_timing.py', '--case-json', file], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'], timeout: 900_000 });
     return out.split('\n').filter((l) => l.startsWith('{')).map((l) => JSON.parse(l));
   } catch (e) {
     return [{ method: 'python', skipped: `python reference not available (${e.message.split('\n')[0]})` }];
   }
 }
 
-export async function runTransportBench({ sizes = [7, 16, 32, 64] } = {}) {
+/** Slope of log t against log N by least squares. */
+export function fitExponent(points) {
+  const xs = points.map((p) => Math.log(p[0])), ys = points.map((p) => Math.log(p[1]));
+  const mx = xs.reduce((a, b) => a + b, 0) / xs.length, my = ys.reduce((a, b) => a + b, 0) / ys.length;
+  let sxy = 0, sxx = 0;
+  for (let i = 0; i < xs.length; i++) { sxy += (xs[i] - mx) * (ys[i] - my); sxx += (xs[i] - mx) ** 2; }
+  return sxy / sxx;
+}
+
+/** Time and peak memory of one structured hsr evaluation of size n in a fresh node process. */
+function freshProcess(n) {
+  const script = `
+    import { evaluateTransport, systemFromHamiltonian } from './dist/physics/index.js';
+    import { randomCase } from './bench/transport.js';
+    const c = randomCase(${n});
+    const sys = systemFromHamiltonian(c.hamiltonian_cm, { traps: c.trap_sites, lossRate: c.loss_rate_ps });
+    const o = { model: 'hsr', dephasing: c.dephasing_ps, trapRate: c.trap_rate_ps, start: { kind: 'site', site: c.start_site } };
+    const t0 = performance.now();
+    const r = evaluateTransport(sys, o);
+    const first = performance.now() - t0;
+    const t1 = performance.now();
+    evaluateTransport(sys, o);
+    const second = performance.now() - t1;
+    console.log(JSON.stringify({ first, second, maxRssKiB: process.resourceUsage().maxRSS, solver: r.solver, eta: r.efficiency, tau: r.transferTime }));`;
+  try {
+    const out = execFileSync(process.execPath, ['--input-type=module', '-e', script], { encoding: 'utf8', timeout: 600_000 });
+    return JSON.parse(out.trim().split('\n').pop());
+  } catch (e) {
+    return { error: e.message.split('\n')[0] };
+  }
+}
+
+const fmt = (ms) => (ms === undefined ? 'n/a' : typeof ms === 'string' ? ms : ms.toPrecision(3));
+
+export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
   const rows = [];
+  const structured = [];
+  const notes = new Set();
   let hsr7 = NaN;
+  let lastNumpy; // [n, seconds] of the largest numpy run, to predict the next
   for (const n of sizes) {
     const c = randomCase(n);
     const sys = systemFromHamiltonian(c.hamiltonian_cm, { traps: c.trap_sites, lossRate: c.loss_rate_ps, reorganization: 35 });
     const base = { trapRate: c.trap_rate_ps, start: { kind: 'site', site: c.start_site } };
-    const opts = { hsr: { model: 'hsr', dephasing: c.dephasing_ps }, redfield: { model: 'redfield', temperature: 300, cutoff: 100 }, forster: { model: 'forster', temperature: 300 } };
-    const budget = n >= 64 ? 1 : 1500;
-    const ts = {};
-    for (const [model, o] of Object.entries(opts)) {
-      const t = timeIt(() => evaluateTransport(sys, { ...base, ...o }), budget);
-      ts[model] = t;
-      if (model === 'hsr' && n === 7) hsr7 = t.ms;
+    const hsr = { model: 'hsr', dephasing: c.dephasing_ps };
+    const budget = n >= 64 ? 3000 : 1500;
+    const s = timeIt(() => evaluateTransport(sys, { ...base, ...hsr, solver: 'structured' }), budget);
+    structured.push([n, s.ms]);
+    if (n === 7) hsr7 = s.ms;
+    const r = evaluateTransport(sys, { ...base, ...hsr });
+    const dense = n <= DENSE_MAX_N ? timeIt(() => evaluateTransport(sys, { ...base, ...hsr, solver: 'dense' }), budget).ms : 'skipped';
+    const redfield = n <= DENSE_MAX_N ? timeIt(() => evaluateTransport(sys, { ...base, model: 'redfield', temperature: 300, cutoff: 100 }), budget).ms : 'skipped';
+    const forster = timeIt(() => evaluateTransport(sys, { ...base, model: 'forster', temperature: 300 }), budget).ms;
+    if (n > DENSE_MAX_N) notes.add(`lumenfold dense hsr and redfield skipped above N = ${DENSE_MAX_N}: an N^2 x N^2 LU (O(N^6)), about a minute at N = 64`);
+    let py;
+    const predicted = lastNumpy ? lastNumpy[1] * (n / lastNumpy[0]) ** 6 : 0;
+    if (predicted > PYTHON_MAX_S) {
+      py = [{ method: 'numpy-dense-build+solve', skipped: `predicted ${predicted.toFixed(0)} s` }, { method: 'qutip-sparse-build+solve', skipped: `predicted ${predicted.toFixed(0)} s` }];
+    } else {
+      py = pythonTimes(c);
     }
-    const eta = evaluateTransport(sys, { ...base, ...opts.hsr }).efficiency;
-    const py = pythonTimes(c);
-    const pick = (method) => py.find((p) => p.method === method);
-    const npDense = pick('numpy-dense-build+solve');
+    const pick = (method) => py.find((p) => p.method === method) ?? py.find((p) => p.method === 'python');
+    const np = pick('numpy-dense-build+solve');
     const qt = pick('qutip-sparse-build+solve');
-    const fmt = (p) => (!p ? 'n/a' : p.skipped ? 'skipped' : p.median_ms.toPrecision(3));
-    const ratio = (p) => (!p || p.skipped ? '' : (p.median_ms / ts.hsr.ms).toPrecision(3));
-    const agree = npDense && !npDense.skipped ? Math.abs(npDense.efficiency - eta).toExponential(1) : '';
-    rows.push([n, ts.hsr.ms.toPrecision(3), ts.redfield.ms.toPrecision(3), ts.forster.ms.toPrecision(3), fmt(npDense), ratio(npDense), fmt(qt), ratio(qt), agree]);
+    for (const p of [np, qt]) if (p?.skipped) notes.add(`${p.method ?? 'python'} at N = ${n}: ${p.skipped}`);
+    if (np && !np.skipped) lastNumpy = [n, np.median_ms / 1e3];
+    const refMs = (p) => (!p || p.skipped ? undefined : p.median_ms);
+    const ratio = (p) => (refMs(p) === undefined ? '' : (refMs(p) / s.ms).toPrecision(3));
+    const agree = refMs(np) === undefined ? '' : Math.max(Math.abs(np.efficiency - r.efficiency) / np.efficiency, Math.abs(np.transfer_time_ps - r.transferTime) / np.transfer_time_ps).toExponential(1);
+    rows.push([n, fmt(s.ms), fmt(dense), fmt(refMs(np) ?? 'skipped'), ratio(np), fmt(refMs(qt) ?? 'skipped'), ratio(qt), typeof dense === 'number' ? (dense / s.ms).toPrecision(3) : '', fmt(redfield), fmt(forster), r.solver, agree]);
   }
-  const head = ['N', 'hsr ms', 'redfield ms', 'forster ms', 'numpy dense ms', 'numpy/hsr', 'qutip ms', 'qutip/hsr', '|d eta| vs numpy'];
-  console.log('\n## transport: time per evaluation (efficiency + transfer time), median');
+  const head = ['N', 'structured ms', 'dense ms', 'numpy ms', 'numpy/structured', 'qutip ms', 'qutip/structured', 'dense/structured', 'redfield ms', 'forster ms', 'auto ran', 'rel diff vs numpy'];
+  console.log('\n## transport: time per evaluation (hsr efficiency + transfer time unless named), median');
   console.log(head.join(' | '));
-  for (const r of rows) console.log(r.join(' | '));
+  for (const row of rows) console.log(row.join(' | '));
+  const fitPts = structured.filter(([n]) => n >= 16 && n <= 128);
+  if (fitPts.length >= 2) console.log(`fitted exponent of the structured hsr cost, N = ${fitPts.map((p) => p[0]).join(', ')} (least squares on log-log): ${fitExponent(fitPts).toFixed(2)}`);
+  for (const n of [100, 128]) {
+    const f = freshProcess(n);
+    if (f.error) console.log(`N = ${n}, fresh process: ${f.error}`);
+    else console.log(`N = ${n}, fresh process: first evaluation ${f.first.toFixed(0)} ms (with JIT warm-up), second ${f.second.toFixed(0)} ms, peak RSS ${(f.maxRssKiB / 1024).toFixed(0)} MiB, solver ${f.solver}, eta ${f.eta.toFixed(6)}, tau ${f.tau.toPrecision(6)} ps`);
+  }
+  for (const note of notes) console.log(`note: ${note}`);
+  console.log('structured: physics/fast (eigenbasis of -iH - K/2, N x N population system, O(N^4)); dense: LU of the real N^2 x N^2 generator;');
   console.log('numpy dense: N^2 x N^2 complex superoperator from kron formulas + numpy.linalg.solve (build included);');
   console.log('qutip: qutip.liouvillian of the same collapse operators + scipy.sparse.linalg.splu (build included).');
   return { hsr7Ms: hsr7 };

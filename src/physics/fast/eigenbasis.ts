@@ -1,4 +1,6 @@
 import type { ComplexMatrix } from '../linalg/complex-dense.js';
+import { cabs } from '../linalg/complex-scalar.js';
+import { scratch, type Workspace } from '../linalg/workspace.js';
 
 /**
  * The eigenbasis of A0 = -i H - K/2 = V Lambda0 V^-1 with V^-1 = V^T (A0 is complex symmetric), and the
@@ -33,13 +35,13 @@ export interface Eigenbasis {
 }
 
 /** Build the packed tables from eigenvalues of A0 and V^T-orthonormal eigenvectors. O(N^3). */
-export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vectors: ComplexMatrix, gamma: number): Eigenbasis {
+export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vectors: ComplexMatrix, gamma: number, ws?: Workspace): Eigenbasis {
   const { n, re: vr, im: vi } = vectors;
   const len = n * n;
-  const g = new Float64Array(len), f = new Float64Array(len);
+  const g = scratch(ws, 'eb.g', len), f = scratch(ws, 'eb.f', len);
   let minGap = Infinity, maxLam = 0;
   for (let i = 0; i < n; i++) {
-    maxLam = Math.max(maxLam, Math.hypot(valuesRe[i], valuesIm[i]));
+    maxLam = Math.max(maxLam, cabs(valuesRe[i], valuesIm[i]));
     const s = 2 * valuesRe[i];
     const d = s - gamma;
     minGap = Math.min(minGap, Math.abs(d));
@@ -59,7 +61,7 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
       f[p] = sr * gr - si * gi; f[p + 1] = sr * gi + si * gr;
     }
   }
-  const u = new Float64Array(n * len), z = new Float64Array(n * len);
+  const u = scratch(ws, 'eb.u', n * len), z = scratch(ws, 'eb.z', n * len);
   for (let k = 0; k < n; k++) {
     const rk = k * n, o = k * len;
     for (let i = 0; i < n; i++) {
@@ -85,30 +87,42 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
   return { n, vectors, g, u, z, gapRatio: minGap / (maxLam + gamma) };
 }
 
-/** [V Y V^H]_kk for every k: u Y (N^3). */
-export function siteDiagonal(e: Eigenbasis, y: Float64Array, out = new Float64Array(e.n)): Float64Array {
+/** [V Y V^H]_kk for every k: u Y (N^3), two rows of u per pass over Y. */
+export function siteDiagonal(e: Eigenbasis, y: Float64Array, out: Float64Array): Float64Array {
   const { n, u } = e;
   const len = n * n;
-  for (let k = 0; k < n; k++) {
-    const o = k * len;
+  let k = 0;
+  for (; k + 1 < n; k += 2) {
+    const o0 = k * len, o1 = o0 + len;
     let s0 = 0, s1 = 0;
-    let i = 0;
-    for (; i + 1 < len; i += 2) { s0 += u[o + i] * y[i]; s1 += u[o + i + 1] * y[i + 1]; }
-    if (i < len) s0 += u[o + i] * y[i];
-    out[k] = s0 + s1;
+    for (let i = 0; i < len; i++) { const b = y[i]; s0 += u[o0 + i] * b; s1 += u[o1 + i] * b; }
+    out[k] = s0; out[k + 1] = s1;
+  }
+  if (k < n) {
+    const o0 = k * len;
+    let s0 = 0;
+    for (let i = 0; i < len; i++) s0 += u[o0 + i] * y[i];
+    out[k] = s0;
   }
   return out;
 }
 
-/** Packed W diag(w) W^H = sum_m w_m q_m (N^3; zero weights are skipped). */
-export function diagonalInEigenbasis(e: Eigenbasis, w: ArrayLike<number>, out = new Float64Array(e.n * e.n)): Float64Array {
+/** Packed W diag(w) W^H = sum_m w_m q_m (N^3), four rows of u per pass over the output. */
+export function diagonalInEigenbasis(e: Eigenbasis, w: ArrayLike<number>, out: Float64Array): Float64Array {
   const { n, u } = e;
   const len = n * n;
   out.fill(0);
-  for (let m = 0; m < n; m++) {
-    const c = w[m];
-    if (c === 0) continue;
-    const o = m * len;
+  const rows: number[] = [];
+  for (let m = 0; m < n; m++) if (w[m] !== 0) rows.push(m);
+  let t = 0;
+  for (; t + 3 < rows.length; t += 4) {
+    const m0 = rows[t], m1 = rows[t + 1], m2 = rows[t + 2], m3 = rows[t + 3];
+    const c0 = w[m0], c1 = w[m1], c2 = w[m2], c3 = w[m3];
+    const o0 = m0 * len, o1 = m1 * len, o2 = m2 * len, o3 = m3 * len;
+    for (let i = 0; i < len; i++) out[i] += c0 * u[o0 + i] + c1 * u[o1 + i] + c2 * u[o2 + i] + c3 * u[o3 + i];
+  }
+  for (; t < rows.length; t++) {
+    const c = w[rows[t]], o = rows[t] * len;
     for (let i = 0; i < len; i++) out[i] += c * u[o + i];
   }
   // u carries (1; 2, -2) times q
@@ -129,15 +143,19 @@ export function multiplyByG(e: Eigenbasis, y: Float64Array): Float64Array {
   return y;
 }
 
-/** Packed W B W^H = V^T B conj(V) for a real symmetric B (row-major N x N). */
-export function symmetricInEigenbasis(e: Eigenbasis, b: Float64Array): Float64Array {
+/** Packed W B W^H = V^T B conj(V) for a real symmetric B (row-major N x N), into `out` (N^2). */
+export function symmetricInEigenbasis(e: Eigenbasis, b: Float64Array, out: Float64Array, ws?: Workspace): Float64Array {
   const { n } = e;
   let diagonal = true;
   for (let i = 0; i < n && diagonal; i++) for (let j = 0; j < n; j++) if (i !== j && b[i * n + j] !== 0) { diagonal = false; break; }
-  if (diagonal) return diagonalInEigenbasis(e, Float64Array.from({ length: n }, (_, i) => b[i * n + i]));
+  if (diagonal) {
+    const w = scratch(ws, 'eb.w', n);
+    for (let i = 0; i < n; i++) w[i] = b[i * n + i];
+    return diagonalInEigenbasis(e, w, out);
+  }
   const { re: vr, im: vi } = e.vectors;
   // T = V^T B: T_ik = sum_m V_mi B_mk
-  const tr = new Float64Array(n * n), ti = new Float64Array(n * n);
+  const tr = scratch(ws, 'eb.tr', n * n), ti = scratch(ws, 'eb.ti', n * n);
   for (let m = 0; m < n; m++) {
     for (let i = 0; i < n; i++) {
       const ar = vr[m * n + i], ai = vi[m * n + i];
@@ -146,7 +164,6 @@ export function symmetricInEigenbasis(e: Eigenbasis, b: Float64Array): Float64Ar
     }
   }
   // Y_ij = sum_k T_ik conj(V_kj) for i <= j
-  const out = new Float64Array(n * n);
   let p = n;
   for (let i = 0; i < n; i++) {
     const ri = i * n;

@@ -2,7 +2,8 @@ import { LumenfoldError } from '../../errors.js';
 import type { ComplexMatrix } from '../linalg/complex-dense.js';
 import { complexEigen } from '../linalg/complex-eigen.js';
 import { complexSymmetricEigen } from '../linalg/complex-symmetric-eigen.js';
-import { csqrt } from '../linalg/complex-scalar.js';
+import { cabs, csqrt } from '../linalg/complex-scalar.js';
+import type { Workspace } from '../linalg/workspace.js';
 
 export interface HsrEigen {
   readonly valuesRe: Float64Array;
@@ -22,12 +23,13 @@ const DEGENERATE = 1e-6;
  * symmetric solver (complex orthogonal transformations, about 10 N^3), and when that breaks down or gives a
  * basis worse conditioned than `maxCondition`, by the unitary QR solver (Hessenberg + shifted QR, about
  * 60 N^3) followed by normalization in the bilinear form and, inside groups of (nearly) equal eigenvalues,
- * Gram-Schmidt in that form. Returns a failure reason when neither gives a usable basis.
+ * Gram-Schmidt in that form. Returns a failure reason when neither gives a usable basis. The complex
+ * symmetric path works in `ws` when given (its arrays are then the workspace's).
  */
-export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number): HsrEigen | { failure: string } {
+export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number, ws?: Workspace): HsrEigen | { failure: string } {
   const reasons: string[] = [];
   try {
-    const e = complexSymmetricEigen(s);
+    const e = complexSymmetricEigen(s, ws);
     const condition = conditionOf(e.vectors);
     if (condition <= maxCondition) return { valuesRe: e.valuesRe, valuesIm: e.valuesIm, vectors: e.vectors, condition, solver: 'complex-symmetric' };
     reasons.push(`complex symmetric eigenvectors ill-conditioned (cond ${condition.toExponential(1)})`);
@@ -60,7 +62,7 @@ function conditionOf(v: ComplexMatrix): number {
   for (let i = 0; i < n; i++) {
     let row = 0;
     for (let j = 0; j < n; j++) {
-      const a = Math.hypot(re[i * n + j], im[i * n + j]);
+      const a = cabs(re[i * n + j], im[i * n + j]);
       row += a;
       col[j] += a;
     }
@@ -76,10 +78,10 @@ function conditionOf(v: ComplexMatrix): number {
 function bilinearOrthonormalize(v: ComplexMatrix, lr: Float64Array, li: Float64Array): string | undefined {
   const { n, re, im } = v;
   let radius = 0;
-  for (let i = 0; i < n; i++) radius = Math.max(radius, Math.hypot(lr[i], li[i]));
+  for (let i = 0; i < n; i++) radius = Math.max(radius, cabs(lr[i], li[i]));
   for (let c = 0; c < n; c++) {
     for (let p = 0; p < c; p++) {
-      if (Math.hypot(lr[p] - lr[c], li[p] - li[c]) > DEGENERATE * radius) continue;
+      if (cabs(lr[p] - lr[c], li[p] - li[c]) > DEGENERATE * radius) continue;
       // v_c -= (v_p^T v_c) v_p with v_p^T v_p = 1
       let sr = 0, si = 0;
       for (let i = 0; i < n; i++) {
@@ -96,7 +98,7 @@ function bilinearOrthonormalize(v: ComplexMatrix, lr: Float64Array, li: Float64A
       const a = re[i * n + c], b = im[i * n + c];
       qr += a * a - b * b; qi += 2 * a * b; qn += a * a + b * b;
     }
-    if (!(Math.hypot(qr, qi) > 1e-12 * qn)) return `eigenvector ${c + 1} is isotropic (v^T v = 0): the matrix is defective or nearly so`;
+    if (!(cabs(qr, qi) > 1e-12 * qn)) return `eigenvector ${c + 1} is isotropic (v^T v = 0): the matrix is defective or nearly so`;
     const [sr, si] = csqrt(qr, qi);
     const d = sr * sr + si * si, ir = sr / d, ii = -si / d;
     for (let i = 0; i < n; i++) {

@@ -1,7 +1,7 @@
 import { NumericalError } from '../../errors.js';
 import { CM_TO_RAD_PER_PS } from '../constants.js';
-import { complexZeros } from '../linalg/complex-dense.js';
 import { luFactor, luSolve } from '../linalg/lu.js';
+import { Workspace } from '../linalg/workspace.js';
 import { diagonalInEigenbasis, type Eigenbasis, eigenbasis, multiplyByG, siteDiagonal, symmetricInEigenbasis } from './eigenbasis.js';
 import { hsrEigenvectors } from './hsr-eigenvectors.js';
 import { populationCoupling } from './population-coupling.js';
@@ -43,6 +43,8 @@ export const MAX_PROBE_RESIDUAL = 1e-10;
 /** Largest |eta + loss - 1| accepted. */
 export const MAX_BALANCE_RESIDUAL = 1e-9;
 const PROBES = 2;
+/** Scratch arrays shared by every call in this thread (each worker thread has its own module instance). */
+const WORK = new Workspace();
 
 function unavailable(reason: string): never {
   throw new NumericalError(reason, STRUCTURED_UNAVAILABLE);
@@ -64,60 +66,70 @@ function unavailable(reason: string): never {
  * a NumericalError with code STRUCTURED_UNAVAILABLE says why, and the caller falls back to the dense solve.
  */
 export function structuredHsr(p: HsrProblem): StructuredHsrResult {
+  const ws = WORK;
   const { n, dephasing: gamma } = p;
+  const len = n * n;
   // K (loss + trap) is kept apart from K + gamma: recovering a 1e-3 loss from 1e4 + 1e-3 would cost 8 digits
-  const k = new Float64Array(n), decay = new Float64Array(n);
+  const k = ws.take('hsr.k', n), decay = ws.take('hsr.decay', n);
   for (let m = 0; m < n; m++) { k[m] = p.lossRates[m] + p.trapRates[m]; decay[m] = k[m] + gamma; }
   // H in rad/ps with its mean diagonal taken out (a multiple of I cancels in L)
   let mean = 0;
   for (let m = 0; m < n; m++) mean += p.hamiltonian[m * n + m];
   mean /= n;
-  const h = new Float64Array(n * n);
-  for (let k = 0; k < n * n; k++) h[k] = p.hamiltonian[k] * CM_TO_RAD_PER_PS;
+  const h = ws.take('hsr.h', len);
+  for (let i = 0; i < len; i++) h[i] = p.hamiltonian[i] * CM_TO_RAD_PER_PS;
   for (let m = 0; m < n; m++) h[m * n + m] -= mean * CM_TO_RAD_PER_PS;
   // S0 = H - i K/2 = i A0 (dephasing left out: it shifts A by -gamma/2 I and is added exactly in eigenbasis.ts)
-  const s = complexZeros(n);
+  const s = { n, re: ws.take('hsr.sr', len), im: ws.zeros('hsr.si', len) };
   s.re.set(h);
   for (let m = 0; m < n; m++) s.im[m * n + m] = -0.5 * k[m];
-  const eig = hsrEigenvectors(s, MAX_EIGENVECTOR_CONDITION);
+  const eig = hsrEigenvectors(s, MAX_EIGENVECTOR_CONDITION, ws);
   if ('failure' in eig) unavailable(eig.failure);
   // lambda0 = -i mu
-  const lr = Float64Array.from(eig.valuesIm), li = eig.valuesRe.map((x) => -x);
-  const e = eigenbasis(lr, li, eig.vectors, gamma);
+  const lr = ws.take('hsr.lr', n), li = ws.take('hsr.li', n);
+  for (let i = 0; i < n; i++) { lr[i] = eig.valuesIm[i]; li[i] = -eig.valuesRe[i]; }
+  const e = eigenbasis(lr, li, eig.vectors, gamma, ws);
   if (!(e.gapRatio > 1e-13)) unavailable(`the Lyapunov part is nearly singular (min |lambda_i + conj(lambda_j)| / max |lambda| = ${e.gapRatio.toExponential(2)})`);
-  const F = populationCoupling(e);
+  const F = populationCoupling(e, ws);
   let lu;
   try {
     lu = luFactor(F, n, false);
   } catch (err) {
     unavailable(`the population system I + gamma M is singular (${(err as Error).message})`);
   }
-  const solve = (rhs: Float64Array) => {
-    const w = multiplyByG(e, Float64Array.from(rhs));
-    const d = luSolve(lu, siteDiagonal(e, w));
-    const x = diagonalInEigenbasis(e, d);
-    for (let k = 0; k < x.length; k++) x[k] = rhs[k] - gamma * x[k];
+  const w = ws.take('hsr.w', len), u = ws.take('hsr.u', n);
+  // X = L^-1(b): d = (I + gamma M)^-1 diag(L0^-1 b), X = L0^-1(b - gamma diag(d)), all packed in the eigenbasis
+  const solve = (rhs: Float64Array, x: Float64Array, diagonal: Float64Array) => {
+    w.set(rhs);
+    multiplyByG(e, w);
+    const d = luSolve(lu, siteDiagonal(e, w, u));
+    diagonalInEigenbasis(e, d, x);
+    for (let i = 0; i < len; i++) x[i] = rhs[i] - gamma * x[i];
     multiplyByG(e, x);
-    return { packed: x, diagonal: siteDiagonal(e, x), predicted: d };
+    return { packed: x, diagonal: siteDiagonal(e, x, diagonal), predicted: d };
   };
-  const rho0Packed = symmetricInEigenbasis(e, p.rho0);
-  for (let k = 0; k < rho0Packed.length; k++) rho0Packed[k] = -rho0Packed[k];
-  const X = solve(rho0Packed);
-  const Y = solve(X.packed.map((x) => -x));
+  const b = symmetricInEigenbasis(e, p.rho0, ws.take('hsr.b', len), ws);
+  for (let i = 0; i < len; i++) b[i] = -b[i];
+  const X = solve(b, ws.take('hsr.x', len), ws.take('hsr.xd', n));
+  const minusX = ws.take('hsr.mx', len);
+  for (let i = 0; i < len; i++) minusX[i] = -X.packed[i];
+  const Y = solve(minusX, ws.take('hsr.y', len), ws.take('hsr.yd', n));
   checkConsistent('X', X.diagonal, X.predicted);
   checkConsistent('Y', Y.diagonal, Y.predicted);
   const op: ProbeOperator = { n, h, decay, gamma };
   let worst = 0;
   for (let t = 0; t < PROBES; t++) {
-    const z = probeVector(n, t);
-    const xz = probeImage(e, X.packed, z);
-    const yz = probeImage(e, Y.packed, z);
+    const z = probeVector(n, t, ws);
     let zrz = 0; // z^H rho0 z
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
       const r = p.rho0[i * n + j];
       if (r !== 0) zrz += r * (z.zr[i] * z.zr[j] + z.zi[i] * z.zi[j]);
     }
-    worst = Math.max(worst, probeResidual(op, xz, X.diagonal, -zrz), probeResidual(op, yz, Y.diagonal, -xz.quadratic));
+    const xz = probeImage(e, X.packed, z, ws);
+    worst = Math.max(worst, probeResidual(op, xz, X.diagonal, -zrz));
+    const zxz = xz.quadratic;
+    // the second image reuses the first one's arrays
+    worst = Math.max(worst, probeResidual(op, probeImage(e, Y.packed, z, ws), Y.diagonal, -zxz));
   }
   if (!(worst <= MAX_PROBE_RESIDUAL)) unavailable(`the residual check failed (relative residual ${worst.toExponential(2)} > ${MAX_PROBE_RESIDUAL})`);
   let efficiency = 0, lossFraction = 0, trapTime = 0;

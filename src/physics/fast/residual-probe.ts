@@ -1,3 +1,4 @@
+import { scratch, type Workspace } from '../linalg/workspace.js';
 import type { Eigenbasis } from './eigenbasis.js';
 
 /** What a probe needs of the generator L(X) = A X + X A^H + gamma diag(X), A = -i H - K'/2. */
@@ -22,21 +23,21 @@ export interface ProbeImage {
 }
 
 /** Fixed pseudo-random complex probe vectors (an LCG with a fixed seed: runs are reproducible). */
-export function probeVector(n: number, index: number): { zr: Float64Array; zi: Float64Array } {
-  const zr = new Float64Array(n), zi = new Float64Array(n);
+export function probeVector(n: number, index: number, ws?: Workspace): { zr: Float64Array; zi: Float64Array } {
+  const zr = scratch(ws, 'probe.zr', n), zi = scratch(ws, 'probe.zi', n);
   let s = (0x2545f491 + 977 * index) >>> 0;
   const next = () => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s / 4294967296 - 0.5; };
   for (let k = 0; k < n; k++) { zr[k] = next(); zi[k] = next(); }
   return { zr, zi };
 }
 
-/** X z for X = V Y V^H with Y packed (eigenbasis.ts), in O(N^2). */
-export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array; zi: Float64Array }): ProbeImage {
+/** X z for X = V Y V^H with Y packed (eigenbasis.ts), in O(N^2). With a workspace, the next call reuses its arrays. */
+export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array; zi: Float64Array }, ws?: Workspace): ProbeImage {
   const { n } = e;
   const { re: vr, im: vi } = e.vectors;
   const { zr, zi } = z;
   // a = V^H z
-  const ar = new Float64Array(n), ai = new Float64Array(n);
+  const ar = scratch(ws, 'probe.ar', n), ai = scratch(ws, 'probe.ai', n);
   for (let k = 0; k < n; k++) {
     const rk = k * n, cr = zr[k], ci = zi[k];
     for (let i = 0; i < n; i++) {
@@ -46,7 +47,7 @@ export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array
     }
   }
   // b = Y a, Y Hermitian packed
-  const br = new Float64Array(n), bi = new Float64Array(n);
+  const br = scratch(ws, 'probe.br', n), bi = scratch(ws, 'probe.bi', n);
   for (let i = 0; i < n; i++) { br[i] = y[i] * ar[i]; bi[i] = y[i] * ai[i]; }
   let p = n;
   for (let i = 0; i < n; i++) {
@@ -60,7 +61,7 @@ export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array
     }
   }
   // X z = V b
-  const xr = new Float64Array(n), xi = new Float64Array(n);
+  const xr = scratch(ws, 'probe.xr', n), xi = scratch(ws, 'probe.xi', n);
   let quadratic = 0;
   for (let k = 0; k < n; k++) {
     const rk = k * n;

@@ -18,3 +18,8 @@ export function cdiv(ar: number, ai: number, br: number, bi: number): [number, n
   const r = br / bi, d = bi + br * r;
   return [(ar * r + ai) / d, (ai * r - ar) / d];
 }
+
+/** |z| by a plain sqrt (several times faster than Math.hypot; fine for |re|, |im| below 1e150). */
+export function cabs(r: number, i: number): number {
+  return Math.sqrt(r * r + i * i);
+}

@@ -1,8 +1,10 @@
+import type { ComplexMatrix } from './complex-dense.js';
 import type { ComplexEigen } from './complex-eigen.js';
-import { type ComplexMatrix, complexZeros } from './complex-dense.js';
+import { cabs } from './complex-scalar.js';
 import { complexSymmetricQl } from './complex-symmetric-ql.js';
-import { complexSymmetricTridiagonal } from './complex-symmetric-tridiagonal.js';
+import { applyQ, complexSymmetricTridiagonal } from './complex-symmetric-tridiagonal.js';
 import { tridiagonalEigenvectors } from './complex-tridiagonal-inverse-iteration.js';
+import { scratch, type Workspace } from './workspace.js';
 
 const EPS = Number.EPSILON;
 
@@ -22,37 +24,56 @@ export interface ComplexSymmetricEigen extends ComplexEigen {
  * eigenvectors) and the other rows are ordered first, so that a matrix whose imaginary part sits on one
  * diagonal entry, such as H - i K / 2 with one trap and a uniform loss, is reduced in real arithmetic.
  * Throws NumericalError where a complex orthogonal step is close to isotropic; use complexEigen then.
+ * With a workspace the returned arrays live in it (workspace.ts).
  */
-export function complexSymmetricEigen(s: ComplexMatrix): ComplexSymmetricEigen {
+export function complexSymmetricEigen(s: ComplexMatrix, ws?: Workspace): ComplexSymmetricEigen {
   const { n } = s;
   const sigma = commonImaginaryDiagonal(s);
-  const order: number[] = [];
-  for (let i = 0; i < n; i++) if (s.im[i * n + i] !== sigma) order.push(i);
-  for (let i = 0; i < n; i++) if (s.im[i * n + i] === sigma) order.push(i);
-  const p = complexZeros(n);
-  for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) {
-    p.re[a * n + b] = s.re[order[a] * n + order[b]];
-    p.im[a * n + b] = s.im[order[a] * n + order[b]] - (a === b ? sigma : 0);
+  const order = new Int32Array(n);
+  let t0 = 0;
+  for (let i = 0; i < n; i++) if (s.im[i * n + i] !== sigma) order[t0++] = i;
+  for (let i = 0; i < n; i++) if (s.im[i * n + i] === sigma) order[t0++] = i;
+  const p = { n, re: scratch(ws, 'cse.pr', n * n), im: scratch(ws, 'cse.pi', n * n) };
+  for (let a = 0; a < n; a++) {
+    const ra = order[a] * n;
+    for (let b = 0; b < n; b++) {
+      p.re[a * n + b] = s.re[ra + order[b]];
+      p.im[a * n + b] = s.im[ra + order[b]];
+    }
+    p.im[a * n + a] -= sigma;
   }
-  const t = complexSymmetricTridiagonal(p);
-  const valuesRe = new Float64Array(n), valuesIm = new Float64Array(n);
-  const v = complexZeros(n);
+  const t = complexSymmetricTridiagonal(p, ws, true);
+  const valuesRe = scratch(ws, 'cse.lr', n), valuesIm = scratch(ws, 'cse.li', n);
+  const er = scratch(ws, 'cse.er', n), ei = scratch(ws, 'cse.ei', n);
+  // eigenvectors of T, block by block, into Y (p's storage is free again)
+  const y = { n, re: p.re.fill(0), im: p.im.fill(0) };
   let start = 0;
   for (let k = 0; k < n; k++) {
     const last = k === n - 1;
-    const split = last || Math.hypot(t.offRe[k], t.offIm[k]) <= EPS * (Math.hypot(t.diagRe[k], t.diagIm[k]) + Math.hypot(t.diagRe[k + 1], t.diagIm[k + 1]));
+    const split = last || cabs(t.offRe[k], t.offIm[k]) <= EPS * (cabs(t.diagRe[k], t.diagIm[k]) + cabs(t.diagRe[k + 1], t.diagIm[k + 1]));
     if (!split) continue;
     const m = k - start + 1;
-    const dr = t.diagRe.slice(start, k + 1), di = t.diagIm.slice(start, k + 1);
-    const er = t.offRe.slice(start, k + 1), ei = t.offIm.slice(start, k + 1);
-    er[m - 1] = 0; ei[m - 1] = 0;
-    const lr = Float64Array.from(dr), li = Float64Array.from(di);
-    const wr = Float64Array.from(er), wi = Float64Array.from(ei);
+    const dr = t.diagRe.subarray(start, k + 1), di = t.diagIm.subarray(start, k + 1);
+    const lr = valuesRe.subarray(start, k + 1), li = valuesIm.subarray(start, k + 1);
+    const wr = er.subarray(start, k + 1), wi = ei.subarray(start, k + 1);
+    lr.set(dr); li.set(di);
+    wr.set(t.offRe.subarray(start, k + 1)); wi.set(t.offIm.subarray(start, k + 1));
     complexSymmetricQl(lr, li, wr, wi);
-    const y = tridiagonalEigenvectors(dr, di, er, ei, lr, li);
-    for (let c = 0; c < m; c++) { valuesRe[start + c] = lr[c]; valuesIm[start + c] = li[c] + sigma; }
-    backTransform(t.q, t.qReal, order, start, m, y, v);
+    // inverse iteration reads the off-diagonal of the block (its last entry is never used)
+    const b = tridiagonalEigenvectors(dr, di, t.offRe.subarray(start, k + 1), t.offIm.subarray(start, k + 1), lr, li, ws);
+    for (let r = 0; r < m; r++) {
+      const o = (start + r) * n + start;
+      for (let c = 0; c < m; c++) { y.re[o + c] = b.re[r * m + c]; y.im[o + c] = b.im[r * m + c]; }
+    }
     start = k + 1;
+  }
+  for (let c = 0; c < n; c++) valuesIm[c] += sigma;
+  applyQ(t, y, ws);
+  // undo the row order
+  const v = { n, re: scratch(ws, 'cse.vr', n * n), im: scratch(ws, 'cse.vi', n * n) };
+  for (let r = 0; r < n; r++) {
+    const from = r * n, to = order[r] * n;
+    for (let c = 0; c < n; c++) { v.re[to + c] = y.re[from + c]; v.im[to + c] = y.im[from + c]; }
   }
   return { n, valuesRe, valuesIm, vectors: v, growth: t.growth };
 }
@@ -60,36 +81,13 @@ export function complexSymmetricEigen(s: ComplexMatrix): ComplexSymmetricEigen {
 /** The imaginary part that most diagonal entries share exactly (the first of equally common ones). */
 function commonImaginaryDiagonal(s: ComplexMatrix): number {
   const { n } = s;
-  const d = Float64Array.from({ length: n }, (_, i) => s.im[i * n + i]).sort();
-  let best = d[0], bestCount = 0;
-  for (let i = 0; i < n;) {
-    let j = i;
-    while (j < n && d[j] === d[i]) j++;
-    if (j - i > bestCount) { best = d[i]; bestCount = j - i; }
-    i = j;
+  let best = s.im[0], bestCount = 0;
+  for (let i = 0; i < n; i++) {
+    const x = s.im[i * n + i];
+    let count = 0;
+    for (let j = 0; j < n; j++) if (s.im[j * n + j] === x) count++;
+    if (count > bestCount) { best = x; bestCount = count; }
+    if (2 * count > n) break;
   }
   return best;
-}
-
-/** Rows order[r] of V, columns start.., receive (Q Y)[r, :] for the block's Y (m x m). */
-function backTransform(q: ComplexMatrix, qReal: boolean, order: number[], start: number, m: number, y: { re: Float64Array; im: Float64Array }, v: ComplexMatrix): void {
-  const { n } = q;
-  const { re: qr, im: qi } = q;
-  for (let r = 0; r < n; r++) {
-    const rr = r * n, out = order[r] * n + start;
-    for (let a = 0; a < m; a++) {
-      const zr = qr[rr + start + a], zi = qReal ? 0 : qi[rr + start + a];
-      if (zr === 0 && zi === 0) continue;
-      const ra = a * m;
-      if (zi === 0) {
-        for (let c = 0; c < m; c++) { v.re[out + c] += zr * y.re[ra + c]; v.im[out + c] += zr * y.im[ra + c]; }
-      } else {
-        for (let c = 0; c < m; c++) {
-          const br = y.re[ra + c], bi = y.im[ra + c];
-          v.re[out + c] += zr * br - zi * bi;
-          v.im[out + c] += zr * bi + zi * br;
-        }
-      }
-    }
-  }
 }

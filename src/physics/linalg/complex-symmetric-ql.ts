@@ -1,5 +1,5 @@
 import { NumericalError } from '../../errors.js';
-import { cdiv, csqrt } from './complex-scalar.js';
+import { cabs, cdiv, csqrt } from './complex-scalar.js';
 
 const EPS = Number.EPSILON;
 
@@ -17,7 +17,7 @@ export function complexSymmetricQl(dr: Float64Array, di: Float64Array, er: Float
   if (m === 0) return;
   er[m - 1] = 0; ei[m - 1] = 0;
   let norm = 0;
-  for (let k = 0; k < m; k++) norm = Math.max(norm, Math.hypot(dr[k], di[k]) + Math.hypot(er[k], ei[k]));
+  for (let k = 0; k < m; k++) norm = Math.max(norm, cabs(dr[k], di[k]) + cabs(er[k], ei[k]));
   const floor = EPS * EPS * norm;
   for (let l = 0; l < m; l++) {
     let iter = 0;
@@ -41,7 +41,12 @@ export function complexSymmetricQl(dr: Float64Array, di: Float64Array, er: Float
       for (let i = mm - 1; i >= l; i--) {
         const fr = sr * er[i] - si * ei[i], fi = sr * ei[i] + si * er[i];
         const br = cr * er[i] - ci * ei[i], bi = cr * ei[i] + ci * er[i];
-        [rr, ri] = csqrt(fr * fr - fi * fi + gr * gr - gi * gi, 2 * (fr * fi + gr * gi));
+        // r = sqrt(f^2 + g^2), the principal root (inlined csqrt: this is the inner loop)
+        const qr = fr * fr - fi * fi + gr * gr - gi * gi, qi = 2 * (fr * fi + gr * gi);
+        if (qr === 0 && qi === 0) { rr = 0; ri = 0; } else {
+          const t = Math.sqrt(0.5 * (Math.sqrt(qr * qr + qi * qi) + Math.abs(qr)));
+          if (qr >= 0) { rr = t; ri = qi / (2 * t); } else { rr = Math.abs(qi) / (2 * t); ri = qi >= 0 ? t : -t; }
+        }
         const size = fr * fr + fi * fi + gr * gr + gi * gi;
         er[i + 1] = rr; ei[i + 1] = ri;
         if (size === 0) {

@@ -1,6 +1,7 @@
 import { NumericalError } from '../../errors.js';
-import { type ComplexMatrix, complexCopy, complexIdentity } from './complex-dense.js';
-import { csqrt } from './complex-scalar.js';
+import { type ComplexMatrix, complexIdentity } from './complex-dense.js';
+import { cabs, csqrt } from './complex-scalar.js';
+import { scratch, type Workspace } from './workspace.js';
 
 /** S = Q T Q^T with T complex symmetric tridiagonal and Q complex orthogonal (Q^T Q = I, not unitary). */
 export interface ComplexSymmetricTridiagonal {
@@ -11,9 +12,16 @@ export interface ComplexSymmetricTridiagonal {
   /** Off-diagonal of T: entry k couples k and k + 1 (length n, the last is zero). */
   readonly offRe: Float64Array;
   readonly offIm: Float64Array;
-  readonly q: ComplexMatrix;
-  /** True when every reflector was real (Q has no imaginary part). */
-  readonly qReal: boolean;
+  /**
+   * Q = P_0 P_1 ... P_{n-3}, P_t = I - c_t v_t v_t^T acting on rows and columns t+1..n-1: v_t is row t of
+   * (reflRe, reflIm), entries t+1..n-1; c_t = 2 / (v_t^T v_t) is (cRe[t], cIm[t]), zero for a skipped step.
+   */
+  readonly reflRe: Float64Array;
+  readonly reflIm: Float64Array;
+  readonly cRe: Float64Array;
+  readonly cIm: Float64Array;
+  /** True when every reflector is real (Q is real). */
+  readonly realReflectors: boolean;
   /** Largest |v|^2 / |v^T v| over the reflectors (1 for real input): how far Q is from unitary. */
   readonly growth: number;
 }
@@ -27,17 +35,18 @@ export const MAX_REFLECTOR_GROWTH = 1e4;
  * Loan, Matrix Computations, 4th ed., alg. 8.3.1) with transposes in place of conjugate transposes, as for
  * complex symmetric eigenproblems in Cullum and Willoughby, SIAM J. Matrix Anal. Appl. 17, 83 (1996). The
  * reflectors leave e_1 fixed, so the first row and column of S keep their meaning. Steps whose data are real
- * run in real arithmetic. Throws NumericalError when a reflector is close to isotropic (v^T v near 0).
+ * run in real arithmetic. Q is kept as its reflectors (applyQ, formQ). With `inPlace` S is overwritten.
+ * Throws NumericalError when a reflector is close to isotropic (v^T v near 0).
  */
-export function complexSymmetricTridiagonal(s: ComplexMatrix): ComplexSymmetricTridiagonal {
+export function complexSymmetricTridiagonal(s: ComplexMatrix, ws?: Workspace, inPlace = false): ComplexSymmetricTridiagonal {
   const { n } = s;
-  const a = complexCopy(s);
-  const { re, im } = a;
-  const vr = new Float64Array(n), vi = new Float64Array(n);
-  const pr = new Float64Array(n), pi = new Float64Array(n);
-  const reflectors: { k: number; vr: Float64Array; vi: Float64Array; cr: number; ci: number }[] = [];
+  const re = inPlace ? s.re : Float64Array.from(s.re), im = inPlace ? s.im : Float64Array.from(s.im);
+  const reflRe = scratch(ws, 'cst.vr', n * n), reflIm = scratch(ws, 'cst.vi', n * n);
+  const cRe = scratch(ws, 'cst.cr', n), cIm = scratch(ws, 'cst.ci', n);
+  const pr = scratch(ws, 'cst.pr', n), pi = scratch(ws, 'cst.pi', n);
   let growth = 1;
   let real = false; // once the trailing block is real it stays real
+  let realReflectors = true;
   for (let k = 0; k < n - 2; k++) {
     const f = k + 1; // the reflector acts on rows and columns f..n-1
     let scale = 0;
@@ -47,19 +56,23 @@ export function complexSymmetricTridiagonal(s: ComplexMatrix): ComplexSymmetricT
     if (tail === 0) continue;
     if (!real) real = isRealBlock(im, n, k, f);
     // x = column k below the diagonal, scaled; alpha = sqrt(x^T x), v = x + alpha e_1 with the sign that keeps |v_1| large
+    const o = k * n;
     let sr = 0, si = 0;
     for (let i = f; i < n; i++) {
       const xr = re[i * n + k] / scale, xi = im[i * n + k] / scale;
-      vr[i] = xr; vi[i] = xi;
+      reflRe[o + i] = xr; reflIm[o + i] = xi;
       sr += xr * xr - xi * xi; si += 2 * xr * xi;
     }
     let [ar, ai] = csqrt(sr, si);
-    if (vr[f] * ar + vi[f] * ai < 0) { ar = -ar; ai = -ai; }
-    vr[f] += ar; vi[f] += ai;
+    if (reflRe[o + f] * ar + reflIm[o + f] * ai < 0) { ar = -ar; ai = -ai; }
+    reflRe[o + f] += ar; reflIm[o + f] += ai;
     // v^T v = 2 alpha (alpha + x_1) and |v|^2
     let vvr = 0, vvi = 0, vn = 0;
-    for (let i = f; i < n; i++) { vvr += vr[i] * vr[i] - vi[i] * vi[i]; vvi += 2 * vr[i] * vi[i]; vn += vr[i] * vr[i] + vi[i] * vi[i]; }
-    const g = vn / Math.hypot(vvr, vvi);
+    for (let i = f; i < n; i++) {
+      const a = reflRe[o + i], b = reflIm[o + i];
+      vvr += a * a - b * b; vvi += 2 * a * b; vn += a * a + b * b;
+    }
+    const g = vn / cabs(vvr, vvi);
     if (!(g <= MAX_REFLECTOR_GROWTH)) {
       throw new NumericalError(`complex symmetric tridiagonalization: reflector ${k + 1} is nearly isotropic (|v|^2 / |v^T v| = ${g.toExponential(2)})`, 'isotropic-reflector');
     }
@@ -67,29 +80,22 @@ export function complexSymmetricTridiagonal(s: ComplexMatrix): ComplexSymmetricT
     // c = 2 / (v^T v)
     const den = vvr * vvr + vvi * vvi;
     const cr = (2 * vvr) / den, ci = (-2 * vvi) / den;
-    if (real) rank2Real(re, n, f, vr, pr, cr);
-    else rank2Complex(re, im, n, f, vr, vi, pr, pi, cr, ci);
+    cRe[k] = cr; cIm[k] = ci;
+    if (!real) realReflectors = false;
+    const v = reflRe.subarray(o, o + n), vi = reflIm.subarray(o, o + n);
+    if (real) rank2Real(re, n, f, v, pr, cr);
+    else rank2Complex(re, im, n, f, v, vi, pr, pi, cr, ci);
     // column and row k: -alpha e_1 times the scale
     re[f * n + k] = re[k * n + f] = -ar * scale;
     im[f * n + k] = im[k * n + f] = -ai * scale;
     for (let i = f + 1; i < n; i++) { re[i * n + k] = re[k * n + i] = 0; im[i * n + k] = im[k * n + i] = 0; }
-    reflectors.push({ k: f, vr: vr.slice(f), vi: vi.slice(f), cr, ci });
   }
-  const q = complexIdentity(n);
-  // Q = P_0 P_1 ... : accumulate backward, each P_k touching rows and columns f..n-1 only
-  let qReal = true;
-  for (let t = reflectors.length - 1; t >= 0; t--) {
-    const r = reflectors[t];
-    const realReflector = r.ci === 0 && r.vi.every((x) => x === 0);
-    if (qReal && realReflector) applyLeftReal(q.re, n, r.k, r.vr, r.cr);
-    else { qReal = false; applyLeft(q, r); }
-  }
-  const diagRe = new Float64Array(n), diagIm = new Float64Array(n), offRe = new Float64Array(n), offIm = new Float64Array(n);
+  const diagRe = scratch(ws, 'cst.dr', n), diagIm = scratch(ws, 'cst.di', n), offRe = scratch(ws, 'cst.er', n), offIm = scratch(ws, 'cst.ei', n);
   for (let i = 0; i < n; i++) {
     diagRe[i] = re[i * n + i]; diagIm[i] = im[i * n + i];
     if (i + 1 < n) { offRe[i] = re[(i + 1) * n + i]; offIm[i] = im[(i + 1) * n + i]; }
   }
-  return { n, diagRe, diagIm, offRe, offIm, q, qReal, growth };
+  return { n, diagRe, diagIm, offRe, offIm, reflRe, reflIm, cRe, cIm, realReflectors, growth };
 }
 
 /** True when column k below the diagonal and the trailing block from f on have no imaginary part. */
@@ -146,45 +152,52 @@ function rank2Complex(re: Float64Array, im: Float64Array, n: number, f: number, 
   }
 }
 
-/** Real case of applyLeft. */
-function applyLeftReal(q: Float64Array, n: number, f: number, v: Float64Array, c: number): void {
-  const m = n - f;
-  const w = new Float64Array(m);
-  for (let i = 0; i < m; i++) {
-    const a = v[i], ri = (f + i) * n + f;
-    if (a === 0) continue;
-    for (let j = 0; j < m; j++) w[j] += a * q[ri + j];
-  }
-  for (let i = 0; i < m; i++) {
-    const a = c * v[i], ri = (f + i) * n + f;
-    if (a === 0) continue;
-    for (let j = 0; j < m; j++) q[ri + j] -= a * w[j];
+/**
+ * Y <- Q Y for an n x n complex Y (row-major), applying the reflectors last to first:
+ * rows t+1.. of Y lose c_t v_t (v_t^T Y). `wr`, `wi` are scratch rows of length n.
+ */
+export function applyQ(t: ComplexSymmetricTridiagonal, y: ComplexMatrix, ws?: Workspace): void {
+  const { n, reflRe, reflIm, cRe, cIm } = t;
+  const { re: yr, im: yi } = y;
+  const wr = scratch(ws, 'cst.wr', n), wi = scratch(ws, 'cst.wi', n);
+  for (let k = n - 3; k >= 0; k--) {
+    const cr = cRe[k], ci = cIm[k];
+    if (cr === 0 && ci === 0) continue;
+    const f = k + 1, o = k * n;
+    wr.fill(0);
+    wi.fill(0);
+    if (t.realReflectors) {
+      for (let i = f; i < n; i++) {
+        const a = reflRe[o + i], ri = i * n;
+        for (let j = 0; j < n; j++) { wr[j] += a * yr[ri + j]; wi[j] += a * yi[ri + j]; }
+      }
+      for (let i = f; i < n; i++) {
+        const a = cr * reflRe[o + i], ri = i * n;
+        for (let j = 0; j < n; j++) { yr[ri + j] -= a * wr[j]; yi[ri + j] -= a * wi[j]; }
+      }
+      continue;
+    }
+    for (let i = f; i < n; i++) {
+      const ar = reflRe[o + i], ai = reflIm[o + i], ri = i * n;
+      for (let j = 0; j < n; j++) {
+        const br = yr[ri + j], bi = yi[ri + j];
+        wr[j] += ar * br - ai * bi; wi[j] += ar * bi + ai * br;
+      }
+    }
+    for (let i = f; i < n; i++) {
+      const vr = reflRe[o + i], vi = reflIm[o + i];
+      const ar = cr * vr - ci * vi, ai = cr * vi + ci * vr, ri = i * n;
+      for (let j = 0; j < n; j++) {
+        yr[ri + j] -= ar * wr[j] - ai * wi[j];
+        yi[ri + j] -= ar * wi[j] + ai * wr[j];
+      }
+    }
   }
 }
 
-/** Q[f.., f..] <- P Q[f.., f..] with P = I - c v v^T. */
-function applyLeft(q: ComplexMatrix, r: { k: number; vr: Float64Array; vi: Float64Array; cr: number; ci: number }): void {
-  const { n, re, im } = q;
-  const f = r.k, m = n - f;
-  const wr = new Float64Array(m), wi = new Float64Array(m);
-  // w = v^T Q (row vector over columns f..n-1)
-  for (let i = 0; i < m; i++) {
-    const ri = (f + i) * n + f, ar = r.vr[i], ai = r.vi[i];
-    if (ar === 0 && ai === 0) continue;
-    for (let j = 0; j < m; j++) {
-      const br = re[ri + j], bi = im[ri + j];
-      wr[j] += ar * br - ai * bi;
-      wi[j] += ar * bi + ai * br;
-    }
-  }
-  for (let i = 0; i < m; i++) {
-    // row factor c v_i
-    const ar = r.cr * r.vr[i] - r.ci * r.vi[i], ai = r.cr * r.vi[i] + r.ci * r.vr[i];
-    if (ar === 0 && ai === 0) continue;
-    const ri = (f + i) * n + f;
-    for (let j = 0; j < m; j++) {
-      re[ri + j] -= ar * wr[j] - ai * wi[j];
-      im[ri + j] -= ar * wi[j] + ai * wr[j];
-    }
-  }
+/** Q as a matrix (for checks; the eigen-solver applies the reflectors directly). */
+export function formQ(t: ComplexSymmetricTridiagonal): ComplexMatrix {
+  const q = complexIdentity(t.n);
+  applyQ(t, q);
+  return q;
 }

@@ -1,5 +1,6 @@
 import { NumericalError } from '../../errors.js';
-import { cdiv, csqrt } from './complex-scalar.js';
+import { cabs, cdiv, csqrt } from './complex-scalar.js';
+import { scratch, type Workspace } from './workspace.js';
 
 const EPS = Number.EPSILON;
 /** Eigenvalues closer than this fraction of ||T|| are treated as a cluster (LAPACK dstein's ORTOL). */
@@ -15,25 +16,26 @@ const ACCEPT = 1e4;
  * orthogonalization against the earlier vectors in the bilinear form y^T x (the form in which eigenvectors
  * of a complex symmetric matrix are orthogonal: Horn and Johnson, Matrix Analysis, 2nd ed., sec. 4.4).
  * This is LAPACK's dstein (Anderson et al., LAPACK Users' Guide, 3rd ed.) with x^T y in place of x^H y.
- * Each vector is scaled to y^T y = 1. Returns Y row-major m x m, column j for eigenvalue j.
+ * Each vector is scaled to y^T y = 1. Returns Y row-major m x m, column j for eigenvalue j (in the workspace
+ * when one is given).
  * Throws NumericalError when a vector is nearly isotropic (y^T y near 0: an eigenvalue near a defective one)
  * or its residual does not reach m eps ||T||.
  */
 export function tridiagonalEigenvectors(
   dr: Float64Array, di: Float64Array, er: Float64Array, ei: Float64Array,
-  lr: Float64Array, li: Float64Array,
+  lr: Float64Array, li: Float64Array, ws?: Workspace,
 ): { re: Float64Array; im: Float64Array } {
   const m = dr.length;
-  const yr = new Float64Array(m * m), yi = new Float64Array(m * m);
+  const yr = scratch(ws, 'tei.yr', m * m), yi = scratch(ws, 'tei.yi', m * m);
   let norm = 0;
   for (let k = 0; k < m; k++) {
-    const off = (k > 0 ? Math.hypot(er[k - 1], ei[k - 1]) : 0) + (k + 1 < m ? Math.hypot(er[k], ei[k]) : 0);
-    norm = Math.max(norm, Math.hypot(dr[k], di[k]) + off);
+    const off = (k > 0 ? cabs(er[k - 1], ei[k - 1]) : 0) + (k + 1 < m ? cabs(er[k], ei[k]) : 0);
+    norm = Math.max(norm, cabs(dr[k], di[k]) + off);
   }
   if (m === 1) { yr[0] = 1; return { re: yr, im: yi }; }
   const tiny = EPS * Math.max(norm, Number.MIN_VALUE);
-  const w = workspace(m);
-  const xr = new Float64Array(m), xi = new Float64Array(m);
+  const w = workspace(m, ws);
+  const xr = scratch(ws, 'tei.xr', m), xi = scratch(ws, 'tei.xi', m);
   for (let j = 0; j < m; j++) {
     let mr = lr[j], mi = li[j];
     for (let i = 0; i < j; i++) {
@@ -77,7 +79,7 @@ export function tridiagonalEigenvectors(
     if (!converged) throw new NumericalError(`inverse iteration: eigenvector ${j + 1} of ${m} did not converge`, 'no-convergence');
     let qr = 0, qi = 0, qn = 0;
     for (let k = 0; k < m; k++) { qr += xr[k] * xr[k] - xi[k] * xi[k]; qi += 2 * xr[k] * xi[k]; qn += xr[k] * xr[k] + xi[k] * xi[k]; }
-    if (Math.hypot(qr, qi) < 1e-10 * qn) throw new NumericalError(`eigenvector ${j + 1} of ${m} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
+    if (cabs(qr, qi) < 1e-10 * qn) throw new NumericalError(`eigenvector ${j + 1} of ${m} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
     const [sr, si] = csqrt(qr, qi);
     const [ir, ii] = cdiv(1, 0, sr, si);
     for (let k = 0; k < m; k++) {
@@ -91,12 +93,14 @@ interface Work {
   /** reciprocal pivots 1 / U_ii */
   pr: Float64Array; pi: Float64Array;
   lr: Float64Array; li: Float64Array;
-  ur: Float64Array; ui: Float64Array; u2r: Float64Array; u2i: Float64Array; swap: Uint8Array;
+  ur: Float64Array; ui: Float64Array; u2r: Float64Array; u2i: Float64Array;
+  /** 1 where rows i and i + 1 were interchanged */
+  swap: Float64Array;
 }
 
-function workspace(m: number): Work {
-  const f = () => new Float64Array(m);
-  return { pr: f(), pi: f(), lr: f(), li: f(), ur: f(), ui: f(), u2r: f(), u2i: f(), swap: new Uint8Array(m) };
+function workspace(m: number, ws?: Workspace): Work {
+  const f = (name: string) => scratch(ws, `tei.${name}`, m);
+  return { pr: f('pr'), pi: f('pi'), lr: f('lr'), li: f('li'), ur: f('ur'), ui: f('ui'), u2r: f('u2r'), u2i: f('u2i'), swap: f('swap') };
 }
 
 /** LU with partial pivoting of T - mu I (zgttrf): a zero pivot is replaced by `tiny`; pivots kept as reciprocals. */
