@@ -107,6 +107,18 @@ export function siteDiagonal(e: Eigenbasis, y: Float64Array, out: Float64Array):
   return out;
 }
 
+/** siteDiagonal of two packed matrices in one pass over u. */
+export function siteDiagonalPair(e: Eigenbasis, y1: Float64Array, y2: Float64Array, out1: Float64Array, out2: Float64Array): void {
+  const { n, u } = e;
+  const len = n * n;
+  for (let k = 0; k < n; k++) {
+    const o = k * len;
+    let s1 = 0, s2 = 0;
+    for (let i = 0; i < len; i++) { const a = u[o + i]; s1 += a * y1[i]; s2 += a * y2[i]; }
+    out1[k] = s1; out2[k] = s2;
+  }
+}
+
 /** Packed W diag(w) W^H = sum_m w_m q_m (N^3), four rows of u per pass over the output. */
 export function diagonalInEigenbasis(e: Eigenbasis, w: ArrayLike<number>, out: Float64Array): Float64Array {
   const { n, u } = e;

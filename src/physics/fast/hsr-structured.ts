@@ -2,7 +2,7 @@ import { NumericalError } from '../../errors.js';
 import { CM_TO_RAD_PER_PS } from '../constants.js';
 import { luFactor, luSolve } from '../linalg/lu.js';
 import { Workspace } from '../linalg/workspace.js';
-import { diagonalInEigenbasis, type Eigenbasis, eigenbasis, multiplyByG, siteDiagonal, symmetricInEigenbasis } from './eigenbasis.js';
+import { diagonalInEigenbasis, type Eigenbasis, eigenbasis, multiplyByG, siteDiagonal, siteDiagonalPair, symmetricInEigenbasis } from './eigenbasis.js';
 import { hsrEigenvectors } from './hsr-eigenvectors.js';
 import { populationCoupling } from './population-coupling.js';
 import { type ProbeOperator, probeImage, probeResidual, probeVector } from './residual-probe.js';
@@ -97,23 +97,24 @@ export function structuredHsr(p: HsrProblem): StructuredHsrResult {
   } catch (err) {
     unavailable(`the population system I + gamma M is singular (${(err as Error).message})`);
   }
-  const w = ws.take('hsr.w', len), u = ws.take('hsr.u', n);
-  // X = L^-1(b): d = (I + gamma M)^-1 diag(L0^-1 b), X = L0^-1(b - gamma diag(d)), all packed in the eigenbasis
-  const solve = (rhs: Float64Array, x: Float64Array, diagonal: Float64Array) => {
-    w.set(rhs);
-    multiplyByG(e, w);
-    const d = luSolve(lu, siteDiagonal(e, w, u));
-    diagonalInEigenbasis(e, d, x);
-    for (let i = 0; i < len; i++) x[i] = rhs[i] - gamma * x[i];
-    multiplyByG(e, x);
-    return { packed: x, diagonal: siteDiagonal(e, x, diagonal), predicted: d };
-  };
+  // X = L^-1(b): d = (I + gamma M)^-1 diag(L0^-1 b), X = L0^-1(b - gamma diag(d)), all packed in the eigenbasis;
+  // then Y = L^-1(-X) the same way. diag(X) and diag(L0^-1(-X)) share one pass over u.
   const b = symmetricInEigenbasis(e, p.rho0, ws.take('hsr.b', len), ws);
   for (let i = 0; i < len; i++) b[i] = -b[i];
-  const X = solve(b, ws.take('hsr.x', len), ws.take('hsr.xd', n));
-  const minusX = ws.take('hsr.mx', len);
-  for (let i = 0; i < len; i++) minusX[i] = -X.packed[i];
-  const Y = solve(minusX, ws.take('hsr.y', len), ws.take('hsr.yd', n));
+  const w = ws.take('hsr.w', len), u = ws.take('hsr.u', n);
+  w.set(b);
+  multiplyByG(e, w);
+  const dX = luSolve(lu, siteDiagonal(e, w, u));
+  const x = assemble(e, b, dX, gamma, ws.take('hsr.x', len));
+  const mx = ws.take('hsr.mx', len);
+  for (let i = 0; i < len; i++) mx[i] = -x[i];
+  w.set(mx);
+  multiplyByG(e, w);
+  const X = { packed: x, diagonal: ws.take('hsr.xd', n), predicted: dX };
+  siteDiagonalPair(e, x, w, X.diagonal, u);
+  const dY = luSolve(lu, u);
+  const y = assemble(e, mx, dY, gamma, ws.take('hsr.y', len));
+  const Y = { packed: y, diagonal: siteDiagonal(e, y, ws.take('hsr.yd', n)), predicted: dY };
   checkConsistent('X', X.diagonal, X.predicted);
   checkConsistent('Y', Y.diagonal, Y.predicted);
   const op: ProbeOperator = { n, h, decay, gamma };
@@ -149,6 +150,13 @@ export function structuredHsr(p: HsrProblem): StructuredHsrResult {
     eigenvectorCondition: eig.condition,
     eigenSolver: eig.solver,
   };
+}
+
+/** X = L0^-1(rhs - gamma diag(d)) packed in the eigenbasis, into out. */
+function assemble(e: Eigenbasis, rhs: Float64Array, d: Float64Array, gamma: number, out: Float64Array): Float64Array {
+  diagonalInEigenbasis(e, d, out);
+  for (let i = 0; i < out.length; i++) out[i] = rhs[i] - gamma * out[i];
+  return multiplyByG(e, out);
 }
 
 /** The site diagonal of the assembled solution must match the one the N x N solve predicted. */

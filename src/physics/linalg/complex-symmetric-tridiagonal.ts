@@ -167,12 +167,18 @@ export function applyQ(t: ComplexSymmetricTridiagonal, y: ComplexMatrix, ws?: Wo
     wr.fill(0);
     wi.fill(0);
     if (t.realReflectors) {
-      for (let i = f; i < n; i++) {
+      // two rows per pass (they share the loads and stores of w)
+      let i = f;
+      for (; i + 1 < n; i += 2) {
+        const a = reflRe[o + i], b = reflRe[o + i + 1], ri = i * n, rj = ri + n;
+        for (let j = 0; j < n; j++) { wr[j] += a * yr[ri + j] + b * yr[rj + j]; wi[j] += a * yi[ri + j] + b * yi[rj + j]; }
+      }
+      if (i < n) {
         const a = reflRe[o + i], ri = i * n;
         for (let j = 0; j < n; j++) { wr[j] += a * yr[ri + j]; wi[j] += a * yi[ri + j]; }
       }
-      for (let i = f; i < n; i++) {
-        const a = cr * reflRe[o + i], ri = i * n;
+      for (let r = f; r < n; r++) {
+        const a = cr * reflRe[o + r], ri = r * n;
         for (let j = 0; j < n; j++) { yr[ri + j] -= a * wr[j]; yi[ri + j] -= a * wi[j]; }
       }
       continue;
