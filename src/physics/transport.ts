@@ -3,6 +3,7 @@ import { withDefaults } from '../options.js';
 import { propagate, type PopulationTraces } from './dynamics.js';
 import { excitons, type Excitons } from './excitons.js';
 import { evaluateHsrStructured } from './fast/hsr-evaluate.js';
+import { evaluateRedfieldStructured } from './fast/redfield-evaluate.js';
 import { STRUCTURED_UNAVAILABLE } from './fast/hsr-structured.js';
 import type { LinearModel, Start } from './models/common.js';
 import { forsterModel } from './models/forster.js';
@@ -76,7 +77,7 @@ interface ModelEntry {
 /** The transport models by name. */
 export const MODELS: Readonly<Record<ModelName, ModelEntry>> = {
   hsr: { summary: 'Haken-Strobl-Reineker pure dephasing (infinite temperature)', finiteTemperature: false, build: hsrModel, structured: evaluateHsrStructured },
-  redfield: { summary: 'secular Bloch-Redfield theory, Drude-Lorentz site baths', finiteTemperature: true, build: redfieldModel },
+  redfield: { summary: 'secular Bloch-Redfield theory, Drude-Lorentz site baths', finiteTemperature: true, build: redfieldModel, structured: evaluateRedfieldStructured },
   forster: { summary: 'incoherent Foerster hopping (classical baseline)', finiteTemperature: true, build: forsterModel },
 };
 

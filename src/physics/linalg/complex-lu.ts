@@ -100,3 +100,39 @@ export function complexLuInverse(f: ComplexLu): ComplexMatrix {
   }
   return x;
 }
+
+/** Solve A x = b in place (b split into re, im) with the LU factors of A. */
+export function complexLuSolve(f: ComplexLu, br: Float64Array, bi: Float64Array): void {
+  const { lu, pivots } = f;
+  const { n, re, im } = lu;
+  for (let k = 0; k < n; k++) {
+    const p = pivots[k];
+    if (p !== k) {
+      let t = br[k]; br[k] = br[p]; br[p] = t;
+      t = bi[k]; bi[k] = bi[p]; bi[p] = t;
+    }
+  }
+  for (let i = 1; i < n; i++) {
+    const ri = i * n;
+    let sr = br[i], si = bi[i];
+    for (let j = 0; j < i; j++) {
+      const lr = re[ri + j], li = im[ri + j];
+      sr -= lr * br[j] - li * bi[j];
+      si -= lr * bi[j] + li * br[j];
+    }
+    br[i] = sr; bi[i] = si;
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    const ri = i * n;
+    let sr = br[i], si = bi[i];
+    for (let j = i + 1; j < n; j++) {
+      const ur = re[ri + j], ui = im[ri + j];
+      sr -= ur * br[j] - ui * bi[j];
+      si -= ur * bi[j] + ui * br[j];
+    }
+    const pr = re[ri + i], pi = im[ri + i];
+    const d = pr * pr + pi * pi;
+    br[i] = (sr * pr + si * pi) / d;
+    bi[i] = (si * pr - sr * pi) / d;
+  }
+}

@@ -139,9 +139,9 @@ describe('fallback to the dense solver where the structured one cannot vouch for
 
 describe('solver option', () => {
   const sys = systemFromHamiltonian([[0, 50], [50, 100]], { traps: [1], reorganization: 30 });
-  it('reports the structured solver for hsr and the dense one for redfield and forster under auto', () => {
+  it('reports the structured solver for hsr and redfield and the dense one for forster under auto', () => {
     expect(evaluateTransport(sys, { model: 'hsr' }).solver).toBe('structured');
-    expect(evaluateTransport(sys, { model: 'redfield' }).solver).toBe('dense');
+    expect(evaluateTransport(sys, { model: 'redfield' }).solver).toBe('structured');
     expect(evaluateTransport(sys, { model: 'forster' }).solver).toBe('dense');
   });
   it('rejects unknown solvers and a structured request for a model without one', () => {
