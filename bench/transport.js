@@ -1,8 +1,9 @@
 // Transport benchmark: time per evaluation (efficiency + transfer time) for N = 7, 16, 32, 64, 128, side by side
 // in one run: lumenfold's structured hsr solver, lumenfold's dense hsr solve (up to N = 32), a dense Liouvillian
 // solve in numpy and QuTiP's construction with a sparse LU on the same problem (bench/reference_timing.py with
-// Debian's python3), plus redfield and forster; then the fitted exponent of the structured solver's cost in N
-// (least squares on log-log over N = 16..128) and the peak memory of a fresh process for N = 100 and 128.
+// Debian's python3), plus redfield (structured, and dense up to N = 32) and forster; then the fitted exponent of
+// the structured solvers' cost in N (least squares on log-log over N = 16..128) and the time and peak memory of
+// a fresh process for N = 100 and 128.
 // Ratios are reference time / lumenfold structured time.
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
@@ -109,6 +110,7 @@ const fmt = (ms) => (ms === undefined ? 'n/a' : typeof ms === 'string' ? ms : ms
 export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
   const rows = [];
   const structured = [];
+  const redfieldStructured = [];
   const notes = new Set();
   let hsr7 = NaN;
   let lastNumpy; // [n, seconds] of the largest numpy run, to predict the next
@@ -123,7 +125,10 @@ export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
     if (n === 7) hsr7 = s.ms;
     const r = evaluateTransport(sys, { ...base, ...hsr });
     const dense = n <= DENSE_MAX_N ? timeIt(() => evaluateTransport(sys, { ...base, ...hsr, solver: 'dense' }), budget).ms : 'skipped';
-    const redfield = n <= DENSE_MAX_N ? timeIt(() => evaluateTransport(sys, { ...base, model: 'redfield', temperature: 300, cutoff: 100 }), budget).ms : 'skipped';
+    const rf = { ...base, model: 'redfield', temperature: 300, cutoff: 100 };
+    const redfield = timeIt(() => evaluateTransport(sys, { ...rf, solver: 'structured' }), budget).ms;
+    redfieldStructured.push([n, redfield]);
+    const redfieldDense = n <= DENSE_MAX_N ? timeIt(() => evaluateTransport(sys, { ...rf, solver: 'dense' }), budget).ms : 'skipped';
     const forster = timeIt(() => evaluateTransport(sys, { ...base, model: 'forster', temperature: 300 }), budget).ms;
     if (n > DENSE_MAX_N) notes.add(`lumenfold dense hsr and redfield skipped above N = ${DENSE_MAX_N}: an N^2 x N^2 LU (O(N^6)), about a minute at N = 64`);
     let py;
@@ -141,21 +146,24 @@ export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
     const refMs = (p) => (!p || p.skipped ? undefined : p.median_ms);
     const ratio = (p) => (refMs(p) === undefined ? '' : (refMs(p) / s.ms).toPrecision(3));
     const agree = refMs(np) === undefined ? '' : Math.max(Math.abs(np.efficiency - r.efficiency) / np.efficiency, Math.abs(np.transfer_time_ps - r.transferTime) / np.transfer_time_ps).toExponential(1);
-    rows.push([n, fmt(s.ms), fmt(dense), fmt(refMs(np) ?? 'skipped'), ratio(np), fmt(refMs(qt) ?? 'skipped'), ratio(qt), typeof dense === 'number' ? (dense / s.ms).toPrecision(3) : '', fmt(redfield), fmt(forster), r.solver, agree]);
+    rows.push([n, fmt(s.ms), fmt(dense), fmt(refMs(np) ?? 'skipped'), ratio(np), fmt(refMs(qt) ?? 'skipped'), ratio(qt), typeof dense === 'number' ? (dense / s.ms).toPrecision(3) : '', fmt(redfield), fmt(redfieldDense), fmt(forster), r.solver, agree]);
   }
-  const head = ['N', 'structured ms', 'dense ms', 'numpy ms', 'numpy/structured', 'qutip ms', 'qutip/structured', 'dense/structured', 'redfield ms', 'forster ms', 'auto ran', 'rel diff vs numpy'];
+  const head = ['N', 'hsr structured ms', 'hsr dense ms', 'numpy ms', 'numpy/structured', 'qutip ms', 'qutip/structured', 'dense/structured', 'redfield structured ms', 'redfield dense ms', 'forster ms', 'hsr auto ran', 'rel diff vs numpy'];
   console.log('\n## transport: time per evaluation (hsr efficiency + transfer time unless named), median');
   console.log(head.join(' | '));
   for (const row of rows) console.log(row.join(' | '));
   const fitPts = structured.filter(([n]) => n >= 16 && n <= 128);
   if (fitPts.length >= 2) console.log(`fitted exponent of the structured hsr cost, N = ${fitPts.map((p) => p[0]).join(', ')} (least squares on log-log): ${fitExponent(fitPts).toFixed(2)}`);
+  const rfPts = redfieldStructured.filter(([n]) => n >= 16 && n <= 128);
+  if (rfPts.length >= 2) console.log(`fitted exponent of the structured redfield cost, same sizes: ${fitExponent(rfPts).toFixed(2)}`);
   for (const n of [100, 128]) {
     const f = freshProcess(n);
     if (f.error) console.log(`N = ${n}, fresh process: ${f.error}`);
     else console.log(`N = ${n}, fresh process: first evaluation ${f.first.toFixed(0)} ms (with JIT warm-up), second ${f.second.toFixed(0)} ms, peak RSS ${(f.maxRssKiB / 1024).toFixed(0)} MiB, solver ${f.solver}, eta ${f.eta.toFixed(6)}, tau ${f.tau.toPrecision(6)} ps`);
   }
   for (const note of notes) console.log(`note: ${note}`);
-  console.log('structured: physics/fast (eigenbasis of -iH - K/2, N x N population system, O(N^4)); dense: LU of the real N^2 x N^2 generator;');
+  console.log('hsr structured: physics/fast (eigenbasis of -iH - K/2, N x N population system, O(N^4)); dense: LU of the real N^2 x N^2 generator;');
+  console.log('redfield structured: secular blocks with a uniform sink and the trap as a Woodbury correction, O(N^3); forster: LU of the N x N rate matrix;');
   console.log('numpy dense: N^2 x N^2 complex superoperator from kron formulas + numpy.linalg.solve (build included);');
   console.log('qutip: qutip.liouvillian of the same collapse operators + scipy.sparse.linalg.splu (build included).');
   return { hsr7Ms: hsr7 };

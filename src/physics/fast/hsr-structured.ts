@@ -56,10 +56,10 @@ function unavailable(reason: string): never {
  *   L(X) = A X + X A^H + gamma diag(X),   A = -i H - (K + gamma I)/2,
  * K = diag(loss + trap rate): the Lyapunov operator L0(X) = A X + X A^H plus a rank-N diagonal part.
  * With A = V Lambda V^T (A is complex symmetric, so V^-1 = V^T), L0^-1(C) = V [(V^T C conj(V)) o G] V^H,
- * G_ij = 1 / (lambda_i + conj(lambda_j)) (the Bartels-Stewart idea with a diagonal A, Golub and Van Loan,
- * Matrix Computations, 4th ed., sec. 7.6.3). The solution of L(X) = B has diagonal d = u - gamma M d with
- * u = diag(L0^-1(B)) and M_km = [L0^-1(E_mm)]_kk (the Sherman-Morrison-Woodbury identity for the rank-N
- * correction, Golub and Van Loan sec. 2.1.4), so (I + gamma M) d = u is an N x N solve, and
+ * G_ij = 1 / (lambda_i + conj(lambda_j)) (Bartels and Stewart, Comm. ACM 15, 820 (1972), with A diagonalized
+ * instead of triangularized). The solution of L(X) = B has diagonal d = u - gamma M d with u = diag(L0^-1(B))
+ * and M_km = [L0^-1(E_mm)]_kk (the Sherman-Morrison-Woodbury identity for the rank-N correction; Hager,
+ * SIAM Rev. 31, 221 (1989)), so (I + gamma M) d = u is an N x N solve, and
  * X = L0^-1(B - gamma diag(d)). Forming M is the O(N^4) step.
  * X = -L^-1 rho0 gives eta = sum_t k_t X_tt and the loss; Y = L^-1(-X) = L^-2 rho0 gives tau.
  * Both solutions are checked by residual probes (residual-probe.ts) and eta + loss = 1; when a check fails

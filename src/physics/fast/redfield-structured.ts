@@ -34,8 +34,8 @@ function unavailable(reason: string): never {
  *   L(X) = D(X) - 1/2 sum_s delta_s (c_s c_s^T X + X c_s c_s^T),
  * D the block-diagonal secular part with the common sink kappa (secular-blocks.ts), c_s the exciton
  * amplitudes of special site s and delta_s its extra sink. The second term has rank 2N per special site
- * (X -> (X^T c_s, X c_s) and back), so the Sherman-Morrison-Woodbury identity (Golub and Van Loan, Matrix
- * Computations, 4th ed., sec. 2.1.4)
+ * (X -> (X^T c_s, X c_s) and back), so the Sherman-Morrison-Woodbury identity (Hager, SIAM Rev. 31, 221
+ * (1989))
  *   L^-1 = D^-1 - D^-1 U (I + V^T D^-1 U)^-1 V^T D^-1
  * needs a 2Nr x 2Nr capacitance matrix. U of a unit vector is one column or one row of a matrix, so each of
  * its columns needs D^-1 on N elements only: O(N^2 r^2) in all after the O(N^3) inversion of the population

@@ -5,7 +5,7 @@ const EPS = Number.EPSILON;
 
 /**
  * Eigenvalues of an unreduced or reducible complex symmetric tridiagonal matrix by the implicit QL algorithm
- * with complex orthogonal rotations (c^2 + s^2 = 1): EISPACK's imtql1 (Martin and Wilkinson, Numer. Math. 12,
+ * with complex orthogonal rotations (c^2 + s^2 = 1): EISPACK's imtql1 (Dubrulle, Martin and Wilkinson, Numer. Math. 12,
  * 377 (1968)) in complex arithmetic, as proposed for complex symmetric matrices by Cullum and Willoughby,
  * SIAM J. Matrix Anal. Appl. 17, 83 (1996). Diagonal d (length m) and off-diagonal e (e[k] couples k, k+1)
  * are overwritten: d receives the eigenvalues (unordered), e is destroyed.

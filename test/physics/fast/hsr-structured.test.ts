@@ -81,6 +81,26 @@ describe('scratch arrays reused between calls (linalg/workspace.ts)', () => {
   });
 });
 
+describe('structured hsr solver against a 40-digit mpmath solve (test/physics/fast/mpmath_chain_reference.py)', () => {
+  // 16-site homogeneous chain, J = -120 cm^-1, trap 1 ps^-1 on the last site, loss 0.001 ps^-1, start on the first;
+  // values printed by the script with Debian's python3-mpmath 1.2.1 (dense Liouvillian LU at 40 digits)
+  const reference = [
+    { gamma: 10, efficiency: 0.98310250838784491581, transferTime: 16.90364864608853985 },
+    { gamma: 1e4, efficiency: 0.4091839097731919242, transferTime: 702.65148078095282539 },
+    { gamma: 1e5, efficiency: 0.016118119149652635219, transferTime: 2385.1844304122209713 },
+  ];
+  const n = 16;
+  const H = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (Math.abs(i - j) === 1 ? -120 : 0)));
+  const sys = systemFromHamiltonian(H, { traps: [n - 1], lossRate: 0.001 });
+  for (const ref of reference) {
+    it(`gamma_phi = ${ref.gamma} ps^-1 (up to the Zeno regime): efficiency and transfer time to 1e-11`, () => {
+      const r = evaluateTransport(sys, { model: 'hsr', solver: 'structured', dephasing: ref.gamma, trapRate: 1, start: { kind: 'site', site: 0 } });
+      expect(rel(r.efficiency, ref.efficiency)).toBeLessThan(1e-11);
+      expect(rel(r.transferTime, ref.transferTime)).toBeLessThan(1e-11);
+    });
+  }
+});
+
 describe('structured hsr solver against QuTiP (test/reference/qutip-reference.json, liouvillian() + SciPy)', () => {
   interface HsrCase { name: string; hamiltonian_cm: number[][]; trap_sites: number[]; trap_rate_ps: number; loss_rate_ps: number | number[]; dephasing_ps: number; start_site: number; efficiency: number; loss_fraction: number; transfer_time_ps: number }
   const ref = JSON.parse(readFileSync(new URL('../../reference/qutip-reference.json', import.meta.url), 'utf8')) as { hsr: HsrCase[] };
