@@ -113,7 +113,7 @@ export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
   const redfieldStructured = [];
   const notes = new Set();
   let hsr7 = NaN;
-  let lastNumpy; // [n, seconds] of the largest numpy run, to predict the next
+  let lastNumpy, lastQutip; // [n, seconds] of the largest numpy / QuTiP run, to predict the next
   for (const n of sizes) {
     const c = randomCase(n);
     const sys = systemFromHamiltonian(c.hamiltonian_cm, { traps: c.trap_sites, lossRate: c.loss_rate_ps, reorganization: 35 });
@@ -132,9 +132,11 @@ export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
     const forster = timeIt(() => evaluateTransport(sys, { ...base, model: 'forster', temperature: 300 }), budget).ms;
     if (n > DENSE_MAX_N) notes.add(`lumenfold dense hsr and redfield skipped above N = ${DENSE_MAX_N}: an N^2 x N^2 LU (O(N^6)), about a minute at N = 64`);
     let py;
-    const predicted = lastNumpy ? lastNumpy[1] * (n / lastNumpy[0]) ** 6 : 0;
-    if (predicted > PYTHON_MAX_S) {
-      py = [{ method: 'numpy-dense-build+solve', skipped: `predicted ${predicted.toFixed(0)} s` }, { method: 'qutip-sparse-build+solve', skipped: `predicted ${predicted.toFixed(0)} s` }];
+    // both python methods run in one process: skip it when either is predicted (N^6 from its last run) too slow
+    const predict = (last) => (last ? last[1] * (n / last[0]) ** 6 : 0);
+    const pn = predict(lastNumpy), pq = predict(lastQutip);
+    if (Math.max(pn, pq) > PYTHON_MAX_S) {
+      py = [{ method: 'numpy-dense-build+solve', skipped: `predicted ${pn.toFixed(0)} s (N^6 from N = ${lastNumpy?.[0]})` }, { method: 'qutip-sparse-build+solve', skipped: `predicted ${pq.toFixed(0)} s (N^6 from N = ${lastQutip?.[0]})` }];
     } else {
       py = pythonTimes(c);
     }
@@ -143,6 +145,7 @@ export async function runTransportBench({ sizes = [7, 16, 32, 64, 128] } = {}) {
     const qt = pick('qutip-sparse-build+solve');
     for (const p of [np, qt]) if (p?.skipped) notes.add(`${p.method ?? 'python'} at N = ${n}: ${p.skipped}`);
     if (np && !np.skipped) lastNumpy = [n, np.median_ms / 1e3];
+    if (qt && !qt.skipped) lastQutip = [n, qt.median_ms / 1e3];
     const refMs = (p) => (!p || p.skipped ? undefined : p.median_ms);
     const ratio = (p) => (refMs(p) === undefined ? '' : (refMs(p) / s.ms).toPrecision(3));
     const agree = refMs(np) === undefined ? '' : Math.max(Math.abs(np.efficiency - r.efficiency) / np.efficiency, Math.abs(np.transfer_time_ps - r.transferTime) / np.transfer_time_ps).toExponential(1);

@@ -36,11 +36,13 @@ export interface TransportOptions {
   /**
    * How efficiency and transfer time are solved. Default 'auto'.
    * - 'dense': LU of the assembled generator (O(N^6) time, O(N^4) memory for hsr and redfield).
-   * - 'structured': the O(N^4)-time, O(N^3)-memory solver of physics/fast/ (hsr only); a NumericalError
-   *   (code 'structured-unavailable') when its checks fail (ill-conditioned eigenvectors, residual, balance).
-   * - 'auto': structured where the model has it and its checks pass, otherwise dense; the result says which
-   *   ran (TransportResult.solver) and why it fell back (fallbackReason). A fallback is refused above
-   *   MAX_DENSE_FALLBACK_SITES sites, where the dense solve would take minutes and gigabytes.
+   * - 'structured': the solvers of physics/fast/: hsr in O(N^4) time and O(N^3) memory (any rates), redfield
+   *   in O(N^3) when the sink (loss + trap) is common to all but at most four sites and the loss is non-zero.
+   *   A NumericalError (code 'structured-unavailable') when they do not apply or their checks fail
+   *   (ill-conditioned eigenvectors, residual, eta + loss = 1).
+   * - 'auto': structured where the model has it and it applies and passes its checks, otherwise dense; the
+   *   result says which ran (TransportResult.solver) and why it fell back (fallbackReason). A fallback is
+   *   refused above MAX_DENSE_FALLBACK_SITES sites, where the dense solve would take minutes and gigabytes.
    * forster is an N x N rate problem: its dense solve is already O(N^3) and it has no other.
    */
   solver: SolverChoice;
@@ -112,14 +114,15 @@ export function evaluateTransport(sys: ExcitonSystem, given?: Partial<TransportO
       const r = entry.structured(sys, o, lazy);
       return { efficiency: r.efficiency, lossFraction: r.lossFraction, transferTime: r.transferTime, balanceResidual: r.balanceResidual, solver: 'structured' };
     } catch (e) {
-      if (!(e instanceof NumericalError && e.code === STRUCTURED_UNAVAILABLE) || o.solver === 'structured') throw e;
+      if (!(e instanceof NumericalError && e.code === STRUCTURED_UNAVAILABLE)) throw e;
+      if (o.solver === 'structured') throw new NumericalError(`structured ${o.model} solver: ${e.message}`, STRUCTURED_UNAVAILABLE);
       fallbackReason = e.message;
       if (sys.n > MAX_DENSE_FALLBACK_SITES) {
-        throw new NumericalError(`the structured ${o.model} solver cannot vouch for this ${sys.n}-site array (${fallbackReason}), and the dense fallback is limited to ${MAX_DENSE_FALLBACK_SITES} sites; pass solver 'dense' to force it`, 'ill-conditioned');
+        throw new NumericalError(`the structured ${o.model} solver gave no answer for this ${sys.n}-site array (${fallbackReason}), and the dense fallback is limited to ${MAX_DENSE_FALLBACK_SITES} sites; pass solver 'dense' to force it`, 'ill-conditioned');
       }
     }
   } else if (o.solver === 'structured') {
-    throw new InputError(`the ${o.model} model has no structured solver (only hsr has one); use solver 'auto' or 'dense'`);
+    throw new InputError(`the ${o.model} model has no structured solver (hsr and redfield have one); use solver 'auto' or 'dense'`);
   }
   const r = trappingObservables(entry.build(sys, o, lazy));
   return fallbackReason === undefined ? r : { ...r, fallbackReason };
