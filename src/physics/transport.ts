@@ -4,7 +4,7 @@ import { propagate, type PopulationTraces } from './dynamics.js';
 import { excitons, type Excitons } from './excitons.js';
 import { evaluateHsrStructured } from './fast/hsr-evaluate.js';
 import { evaluateRedfieldStructured } from './fast/redfield-evaluate.js';
-import { STRUCTURED_UNAVAILABLE } from './fast/hsr-structured.js';
+import { STRUCTURED_NOT_APPLICABLE, STRUCTURED_UNAVAILABLE } from './fast/structured-errors.js';
 import type { LinearModel, Start } from './models/common.js';
 import { forsterModel } from './models/forster.js';
 import { hsrModel } from './models/hsr.js';
@@ -38,11 +38,12 @@ export interface TransportOptions {
    * - 'dense': LU of the assembled generator (O(N^6) time, O(N^4) memory for hsr and redfield).
    * - 'structured': the solvers of physics/fast/: hsr in O(N^4) time and O(N^3) memory (any rates), redfield
    *   in O(N^3) when the sink (loss + trap) is common to all but at most four sites and the loss is non-zero.
-   *   A NumericalError (code 'structured-unavailable') when they do not apply or their checks fail
-   *   (ill-conditioned eigenvectors, residual, eta + loss = 1).
+   *   A NumericalError when they do not apply (code 'structured-not-applicable') or their checks fail
+   *   (code 'structured-unavailable': ill-conditioned eigenvectors, residual, eta + loss = 1).
    * - 'auto': structured where the model has it and it applies and passes its checks, otherwise dense; the
-   *   result says which ran (TransportResult.solver) and why it fell back (fallbackReason). A fallback is
-   *   refused above MAX_DENSE_FALLBACK_SITES sites, where the dense solve would take minutes and gigabytes.
+   *   result says which ran (TransportResult.solver) and why it fell back (fallbackReason). A fallback after a
+   *   failed check is refused above MAX_DENSE_FALLBACK_SITES sites, where the dense solve would take minutes
+   *   and gigabytes; a problem the structured solver does not apply to runs dense at any size.
    * forster is an N x N rate problem: its dense solve is already O(N^3) and it has no other.
    */
   solver: SolverChoice;
@@ -114,10 +115,11 @@ export function evaluateTransport(sys: ExcitonSystem, given?: Partial<TransportO
       const r = entry.structured(sys, o, lazy);
       return { efficiency: r.efficiency, lossFraction: r.lossFraction, transferTime: r.transferTime, balanceResidual: r.balanceResidual, solver: 'structured' };
     } catch (e) {
-      if (!(e instanceof NumericalError && e.code === STRUCTURED_UNAVAILABLE)) throw e;
-      if (o.solver === 'structured') throw new NumericalError(`structured ${o.model} solver: ${e.message}`, STRUCTURED_UNAVAILABLE);
+      if (!(e instanceof NumericalError && (e.code === STRUCTURED_UNAVAILABLE || e.code === STRUCTURED_NOT_APPLICABLE))) throw e;
+      if (o.solver === 'structured') throw new NumericalError(`structured ${o.model} solver: ${e.message}`, e.code);
       fallbackReason = e.message;
-      if (sys.n > MAX_DENSE_FALLBACK_SITES) {
+      // a failed check on a large array is refused; an array without the structure runs dense as it always did
+      if (e.code === STRUCTURED_UNAVAILABLE && sys.n > MAX_DENSE_FALLBACK_SITES) {
         throw new NumericalError(`the structured ${o.model} solver gave no answer for this ${sys.n}-site array (${fallbackReason}), and the dense fallback is limited to ${MAX_DENSE_FALLBACK_SITES} sites; pass solver 'dense' to force it`, 'ill-conditioned');
       }
     }

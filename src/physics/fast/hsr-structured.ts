@@ -1,4 +1,3 @@
-import { NumericalError } from '../../errors.js';
 import { CM_TO_RAD_PER_PS } from '../constants.js';
 import { luFactor, luSolve } from '../linalg/lu.js';
 import { Workspace } from '../linalg/workspace.js';
@@ -6,6 +5,7 @@ import { diagonalInEigenbasis, type Eigenbasis, eigenbasis, multiplyByG, siteDia
 import { hsrEigenvectors } from './hsr-eigenvectors.js';
 import { populationCoupling } from './population-coupling.js';
 import { type ProbeOperator, probeImage, probeResidual, probeVector } from './residual-probe.js';
+import { unavailable } from './structured-errors.js';
 
 /** The hsr problem in plain arrays (validated by the caller). */
 export interface HsrProblem {
@@ -34,8 +34,6 @@ export interface StructuredHsrResult {
   readonly eigenSolver: 'complex-symmetric' | 'unitary-qr';
 }
 
-/** Code of the NumericalError thrown when the structured path cannot vouch for its answer. */
-export const STRUCTURED_UNAVAILABLE = 'structured-unavailable';
 /** Eigenvector bases worse conditioned than this are not used (cond_1(V) estimate). */
 export const MAX_EIGENVECTOR_CONDITION = 1e8;
 /** Largest relative residual a probe may see. */
@@ -45,10 +43,6 @@ export const MAX_BALANCE_RESIDUAL = 1e-9;
 const PROBES = 2;
 /** Scratch arrays shared by every call in this thread (each worker thread has its own module instance). */
 const WORK = new Workspace();
-
-function unavailable(reason: string): never {
-  throw new NumericalError(reason, STRUCTURED_UNAVAILABLE);
-}
 
 /**
  * Efficiency, loss and mean transfer time of the Haken-Strobl-Reineker model in O(N^4) time and O(N^3)
@@ -63,7 +57,8 @@ function unavailable(reason: string): never {
  * X = L0^-1(B - gamma diag(d)). Forming M is the O(N^4) step.
  * X = -L^-1 rho0 gives eta = sum_t k_t X_tt and the loss; Y = L^-1(-X) = L^-2 rho0 gives tau.
  * Both solutions are checked by residual probes (residual-probe.ts) and eta + loss = 1; when a check fails
- * a NumericalError with code STRUCTURED_UNAVAILABLE says why, and the caller falls back to the dense solve.
+ * a NumericalError with code STRUCTURED_UNAVAILABLE (structured-errors.ts) says why, and the caller falls back
+ * to the dense solve.
  */
 export function structuredHsr(p: HsrProblem): StructuredHsrResult {
   const ws = WORK;

@@ -1,8 +1,7 @@
-import { NumericalError } from '../../errors.js';
 import type { Excitons } from '../excitons.js';
 import { complexLuFactor, complexLuSolve } from '../linalg/complex-lu.js';
 import { toExcitonBasis } from '../models/redfield.js';
-import { STRUCTURED_UNAVAILABLE } from './hsr-structured.js';
+import { notApplicable, unavailable } from './structured-errors.js';
 import { redfieldRates } from './redfield-rates.js';
 import { applyInverse, applyInverseSparse, secularBlocks } from './secular-blocks.js';
 
@@ -24,10 +23,6 @@ export interface RedfieldProblem {
   readonly rho0: Float64Array;
 }
 
-function unavailable(reason: string): never {
-  throw new NumericalError(reason, STRUCTURED_UNAVAILABLE);
-}
-
 /**
  * Efficiency, loss and transfer time of the secular Redfield model in O(N^3) when the sink rate (loss +
  * trap) is the same on all but a few sites. In the exciton basis the generator is
@@ -41,7 +36,7 @@ function unavailable(reason: string): never {
  * its columns needs D^-1 on N elements only: O(N^2 r^2) in all after the O(N^3) inversion of the population
  * block. Each solve is then O(N^2), and the residual of L(X) = B is checked exactly in O(N^2 r) plus the
  * couplings.
- * Not applicable (NumericalError, code STRUCTURED_UNAVAILABLE) when more than MAX_SPECIAL_SITES sites differ
+ * Not applicable (NumericalError, code STRUCTURED_NOT_APPLICABLE) when more than MAX_SPECIAL_SITES sites differ
  * (per-site lifetimes make the correction full rank) or when there is no common sink (kappa = 0: the
  * population block of D conserves population and is singular).
  */
@@ -53,8 +48,8 @@ export function structuredRedfield(p: RedfieldProblem): { efficiency: number; lo
   const kappa = commonValue(sink);
   const special: number[] = [];
   for (let m = 0; m < n; m++) if (sink[m] !== kappa) special.push(m);
-  if (special.length > MAX_SPECIAL_SITES) unavailable(`the sink rate (loss + trap) differs from the common one at ${special.length} sites; the structured redfield solver takes at most ${MAX_SPECIAL_SITES} (per-site lifetimes make the trap and loss term full rank)`);
-  if (!(kappa > 0)) unavailable('there is no loss common to the sites (kappa = 0), which the structured redfield solver needs');
+  if (special.length > MAX_SPECIAL_SITES) notApplicable(`the sink rate (loss + trap) differs from the common one at ${special.length} sites; the structured redfield solver takes at most ${MAX_SPECIAL_SITES} (per-site lifetimes make the trap and loss term full rank)`);
+  if (!(kappa > 0)) notApplicable('there is no loss common to the sites (kappa = 0), which the structured redfield solver needs');
   const rates = redfieldRates(ex, p.reorganization, p.temperature, p.cutoff, p.secularFraction);
   const D = secularBlocks(rates, kappa);
   const r = special.length, q = 2 * n * r;

@@ -2,7 +2,7 @@ import { NumericalError } from '../../errors.js';
 import { CM_TO_RAD_PER_PS } from '../constants.js';
 import type { ComplexMatrix } from '../linalg/complex-dense.js';
 import { complexLuFactor, complexLuInverse } from '../linalg/complex-lu.js';
-import { STRUCTURED_UNAVAILABLE } from './hsr-structured.js';
+import { STRUCTURED_UNAVAILABLE } from './structured-errors.js';
 import type { RedfieldRates } from './redfield-rates.js';
 
 /**

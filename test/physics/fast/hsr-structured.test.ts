@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { InputError, NumericalError } from '../../../src/errors.js';
 import { CM_TO_RAD_PER_PS } from '../../../src/physics/constants.js';
-import { STRUCTURED_UNAVAILABLE } from '../../../src/physics/fast/hsr-structured.js';
+import { STRUCTURED_UNAVAILABLE } from '../../../src/physics/fast/structured-errors.js';
 import { buildSystem, systemFromHamiltonian } from '../../../src/physics/hamiltonian.js';
 import type { Start } from '../../../src/physics/models/common.js';
 import { evaluateTransport, MAX_DENSE_FALLBACK_SITES, type TransportOptions } from '../../../src/physics/transport.js';

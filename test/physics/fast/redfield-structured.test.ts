@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { NumericalError } from '../../../src/errors.js';
 import { systemFromHamiltonian } from '../../../src/physics/hamiltonian.js';
-import { STRUCTURED_UNAVAILABLE } from '../../../src/physics/fast/hsr-structured.js';
+import { STRUCTURED_NOT_APPLICABLE } from '../../../src/physics/fast/structured-errors.js';
 import { MAX_SPECIAL_SITES } from '../../../src/physics/fast/redfield-structured.js';
 import { evaluateTransport, type TransportOptions } from '../../../src/physics/transport.js';
 import { randomHamiltonian, rng } from '../../helpers/random.js';
@@ -65,6 +65,7 @@ describe('structured redfield falls back where it does not apply', () => {
     const a = evaluateTransport(sys, { model: 'redfield', trapRate: 1 });
     expect(a.solver).toBe('dense');
     expect(a.fallbackReason).toMatch(/no loss common to the sites/);
-    try { evaluateTransport(sys, { model: 'redfield', trapRate: 1, solver: 'structured' }); } catch (e) { expect((e as NumericalError).code).toBe(STRUCTURED_UNAVAILABLE); }
+    expect(() => evaluateTransport(sys, { model: 'redfield', trapRate: 1, solver: 'structured' })).toThrow(/structured redfield solver: there is no loss/);
+    try { evaluateTransport(sys, { model: 'redfield', trapRate: 1, solver: 'structured' }); } catch (e) { expect((e as NumericalError).code).toBe(STRUCTURED_NOT_APPLICABLE); }
   });
 });
