@@ -16,7 +16,16 @@ function timedRun(workers, budget, dir) {
   return { seconds, best };
 }
 
+/** Wall time of a fixed CPU-bound loop in `n` processes at once: what the machine's cores can give in parallel. */
+function spin(n) {
+  const code = 'let s=0;for(let i=0;i<2e8;i++)s+=Math.sqrt(i);';
+  const t0 = performance.now();
+  execFileSync('/bin/sh', ['-c', Array.from({ length: n }, () => `"${process.execPath}" -e "${code}" &`).join(' ') + ' wait']);
+  return (performance.now() - t0) / 1000;
+}
+
 export async function runWorkersBench({ quick } = {}) {
+  const one0 = spin(1), two0 = spin(2);
   const budget = quick ? 1500 : 4000;
   const dir = mkdtempSync(join(tmpdir(), 'lumenfold-bench-workers-'));
   const one = timedRun(1, budget, dir);
@@ -25,6 +34,7 @@ export async function runWorkersBench({ quick } = {}) {
   console.log('workers | seconds | speed-up | same best design');
   console.log(`1 | ${one.seconds.toFixed(2)} | 1.00 | -`);
   console.log(`2 | ${two.seconds.toFixed(2)} | ${(one.seconds / two.seconds).toFixed(2)} | ${one.best === two.best ? 'yes' : 'NO'}`);
+  console.log(`machine's parallel capacity: a CPU-bound loop takes ${one0.toFixed(2)} s alone and ${two0.toFixed(2)} s as two processes at once, so two threads can give at most ${((2 * one0) / two0).toFixed(2)}x`);
   return { speedup: one.seconds / two.seconds };
 }
 

@@ -1,8 +1,9 @@
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import { InputError, LumenfoldError } from '../errors.js';
-import { computeMetrics, type MetricName } from '../metrics/evaluate.js';
+import { computeMetrics, ensembleEfficiencies, robustStats, type EnsembleEfficiencies, type MetricName } from '../metrics/evaluate.js';
 import { paretoVector, scoreMetricNames, weightedScore } from '../metrics/score.js';
+import { transportOptions } from '../physics/transport.js';
 import { designSpace } from '../space/design-space.js';
 import { metricSettingsFrom, scoreRuleFrom } from './settings.js';
 
@@ -15,25 +16,68 @@ export interface Evaluation {
   error?: string;
 }
 
+/** The metrics of a point that do not need the disorder ensemble, or the model failure. */
+export interface NominalPart { values?: Partial<Record<MetricName, number>>; error?: string }
+/** Efficiencies of a contiguous chunk of a point's disorder samples, or the model failure. */
+export interface EnsemblePart { ens?: EnsembleEfficiencies; error?: string }
+
 /**
- * The search objective of a job: a decoded point of its design space to a score to minimize (minus the
- * weighted sum, or the Pareto vector). Model failures on one candidate give NaN (treated as worst by the
- * search) and the message; configuration errors are thrown.
+ * The search objective of a job split in parts that can run on different threads: the nominal metrics of a
+ * point, chunks of its disorder ensemble, and their combination into a score to minimize (minus the weighted
+ * sum, or the Pareto vector). Model failures on one candidate give NaN (treated as worst by the search) and the
+ * message; configuration errors are thrown. Every thread uses these same parts, so results do not depend on
+ * how the work is shared out.
  */
-export function makeEvaluator(c: ConstraintSet, o: Objective): (p: Record<string, unknown>) => Evaluation {
+export function makeEvaluatorParts(c: ConstraintSet, o: Objective) {
   const ds = designSpace(c);
   const settings = metricSettingsFrom(o, ds.maxSites);
   const rule = scoreRuleFrom(o);
-  const metrics = scoreMetricNames(rule);
-  return (p) => {
-    const d = ds.decode(p);
+  const wanted = scoreMetricNames(rule);
+  const robust = wanted.some((m) => m.startsWith('robust_'));
+  const plain = wanted.filter((m) => !m.startsWith('robust_'));
+  const t = transportOptions(settings.transport);
+  const samples = robust && settings.disorder ? settings.disorder.draws.length : 0;
+  const guard = <T>(f: () => T): T | { error: string } => {
     try {
-      const m = computeMetrics({ sites: d.sites, traps: d.traps }, settings, metrics);
-      const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, m.values) : paretoVector(rule, m.values);
-      return { score, metrics: m.values, ...(m.skippedSamples ? { skippedSamples: m.skippedSamples } : {}) };
+      return f();
     } catch (e) {
       if (!(e instanceof LumenfoldError) || (e instanceof InputError && /finite-temperature/.test(e.message))) throw e;
-      return { score: rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN), metrics: {}, error: e.message };
+      return { error: e.message };
     }
+  };
+  const nominal = (p: Record<string, unknown>): NominalPart => guard(() => {
+    const d = ds.decode(p);
+    return { values: computeMetrics({ sites: d.sites, traps: d.traps }, settings, plain).values };
+  });
+  const ensemble = (p: Record<string, unknown>, from: number, to: number): EnsemblePart => guard(() => {
+    const d = ds.decode(p);
+    return { ens: ensembleEfficiencies({ sites: d.sites, traps: d.traps }, settings, t, from, to) };
+  });
+  const fail = (error: string): Evaluation => ({ score: rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN), metrics: {}, error });
+  const combine = (n: NominalPart, chunks: readonly EnsemblePart[]): Evaluation => {
+    if (n.error !== undefined) return fail(n.error);
+    const values = { ...n.values };
+    let skipped = 0;
+    if (robust) {
+      const bad = chunks.find((ch) => ch.error !== undefined);
+      if (bad) return fail(bad.error!);
+      const etas = chunks.flatMap((ch) => ch.ens!.etas);
+      skipped = chunks.reduce((k, ch) => k + ch.ens!.skipped, 0);
+      const stats = guard(() => robustStats(etas, settings.shareThreshold));
+      if ('error' in stats) return fail(stats.error);
+      Object.assign(values, stats);
+    }
+    const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, values) : paretoVector(rule, values);
+    return { score, metrics: values, ...(skipped ? { skippedSamples: skipped } : {}) };
+  };
+  return { nominal, ensemble, combine, robust, samples };
+}
+
+/** The whole evaluation of one point on this thread. */
+export function makeEvaluator(c: ConstraintSet, o: Objective): (p: Record<string, unknown>) => Evaluation {
+  const parts = makeEvaluatorParts(c, o);
+  return (p) => {
+    const n = parts.nominal(p);
+    return parts.combine(n, parts.robust && n.error === undefined ? [parts.ensemble(p, 0, parts.samples)] : []);
   };
 }

@@ -53,6 +53,21 @@ export function designSystem(d: Design, s: MetricSettings, sites: readonly Site[
   };
 }
 
+/** The warning for disorder samples left out. */
+export function skippedWarning(skipped: number, total: number): string {
+  return `${skipped} of ${total} disorder samples put two dyes on top of each other and were left out`;
+}
+
+/** robust_mean, robust_p10 (type 7 quantile) and robust_share of the sample efficiencies; ModelError when none. */
+export function robustStats(etas: readonly number[], shareThreshold: number): { robust_mean: number; robust_p10: number; robust_share: number } {
+  if (etas.length === 0) throw new ModelError('no disorder sample could be scored: the jitter pushes dyes onto each other every time');
+  return {
+    robust_mean: mean(etas),
+    robust_p10: quantile(etas, 0.1),
+    robust_share: etas.filter((e) => e >= shareThreshold).length / etas.length,
+  };
+}
+
 /** Efficiencies of the disorder samples [from, to) of the ensemble, and how many were left out. */
 export interface EnsembleEfficiencies {
   etas: number[];
@@ -104,11 +119,8 @@ export function computeMetrics(d: Design, s: MetricSettings, wanted: readonly Me
     const ens = precomputed ?? ensembleEfficiencies(d, s, t);
     const etas = ens.etas;
     skipped = ens.skipped;
-    if (skipped) warnings.push(`${skipped} of ${etas.length + skipped} disorder samples put two dyes on top of each other and were left out`);
-    if (etas.length === 0) throw new ModelError('no disorder sample could be scored: the jitter pushes dyes onto each other every time');
-    values.robust_mean = mean(etas);
-    values.robust_p10 = quantile(etas, 0.1);
-    values.robust_share = etas.filter((e) => e >= s.shareThreshold).length / etas.length;
+    if (skipped) warnings.push(skippedWarning(skipped, etas.length + skipped));
+    Object.assign(values, robustStats(etas, s.shareThreshold));
   }
   if (want.has('uphill_efficiency') || want.has('uphill_max_step')) {
     if (!MODELS[t.model].finiteTemperature) {
