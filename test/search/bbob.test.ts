@@ -60,7 +60,7 @@ print(json.dumps([float(rosen(z)) for z in json.load(sys.stdin)]))`,
     }
   });
 
-  it('f3 Rastrigin agrees with a NumPy transcription of the RR-6829 formula', () => {
+  it('f3 Rastrigin agrees with a NumPy rewrite of the RR-6829 formula', () => {
     const f = bbob('rastrigin', 6, 21);
     const rng = Rng.fromSeed(6);
     const xs = Array.from({ length: 8 }, () => Array.from({ length: 6 }, () => 10 * rng.uniform() - 5));

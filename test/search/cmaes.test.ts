@@ -112,7 +112,7 @@ for m in json.load(sys.stdin):
 print(json.dumps(out))`,
       products,
     );
-    // A NumPy transcription of the tutorial's algorithm (no bounds) gave 1.8 to 4.3 over ten seeds at
+    // A NumPy rewrite of the tutorial's algorithm (no bounds) gave 1.8 to 4.3 over ten seeds at
     // the same stage; H itself has condition 1000.
     for (const ratio of ratios) expect(ratio).toBeLessThan(6);
   });
