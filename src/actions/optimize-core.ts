@@ -99,8 +99,8 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   const settings = metricSettingsFrom(o, ds.maxSites);
   const rule = scoreRuleFrom(o);
   const metrics = reportedMetrics(rule, settings);
-  const evaluateOne = makeEvaluator(c, o);
   const pool = s.workers > 1 ? new EvaluationPool(s.workers, c, o) : undefined;
+  const evaluateOne = pool ? undefined : makeEvaluator(c, o);
   let index = s.resume?.scored ?? 0;
   let failed = s.resume?.failed ?? 0;
   let skippedSamples = s.resume?.skippedSamples ?? 0;
@@ -113,7 +113,7 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   // yield to the event loop once per batch so that signals (stop requests) and timers are seen
   const yieldToLoop = () => new Promise<void>((r) => setImmediate(r));
   const evaluateBatch = async (ps: Record<string, unknown>[]) => {
-    const results = pool ? await pool.evaluate(ps) : ps.map(evaluateOne);
+    const results = pool ? await pool.evaluate(ps) : ps.map(evaluateOne!);
     if (!pool) await yieldToLoop();
     return results.map(record);
   };
@@ -134,36 +134,36 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   let state: RunState | undefined;
   let optimizer: string, choice: string | undefined, evaluations: number, hypervolume: number | undefined;
   try {
-  if (rule.kind === 'weighted_sum') {
-    const r = await minimize(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[]> });
-    points = r.archive.filter((f) => f.feasible).map((f) => f.point);
-    if (points.length === 0) points = r.archive.map((f) => f.point);
-    history = [...(s.resume?.convergence ?? []), ...r.history.map((h) => ({ evaluations: h.evaluations, best: -h.best }))];
-    ({ optimizer, evaluations, stopped, state } = r);
-    choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
-  } else {
-    const r = await minimizeMulti(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[][]> });
-    points = r.front.map((f) => f.point);
-    ({ optimizer, evaluations, hypervolume, stopped, state } = r);
-    choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
-  }
+    if (rule.kind === 'weighted_sum') {
+      const r = await minimize(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[]> });
+      points = r.archive.filter((f) => f.feasible).map((f) => f.point);
+      if (points.length === 0) points = r.archive.map((f) => f.point);
+      history = [...(s.resume?.convergence ?? []), ...r.history.map((h) => ({ evaluations: h.evaluations, best: -h.best }))];
+      ({ optimizer, evaluations, stopped, state } = r);
+      choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
+    } else {
+      const r = await minimizeMulti(null, ds.space, { ...common, evaluateBatch: evaluateBatch as (ps: Record<string, unknown>[]) => Promise<number[][]> });
+      points = r.front.map((f) => f.point);
+      ({ optimizer, evaluations, hypervolume, stopped, state } = r);
+      choice = r.choice ? `${r.choice.name}: ${r.choice.reason}` : undefined;
+    }
   } finally {
     await pool?.close();
   }
   // never a NaN in a ranking: designs whose metrics cannot be computed are left out and counted
-  let unrankable = 0;
   const tryScore = (d: DesignPoint): ScoredDesign | undefined => {
     try {
       const r = scoreDesign(ds, d, rule, settings, metrics);
       const ok = r.score !== undefined ? Number.isFinite(r.score) : r.objectives!.every((x) => Number.isFinite(x));
-      if (ok) return r;
+      return ok ? r : undefined;
     } catch (e) {
       if (!(e instanceof LumenfoldError)) throw e;
+      return undefined;
     }
-    unrankable++;
-    return undefined;
   };
-  const ranked = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => tryScore(ds.decode(p))).filter((r): r is ScoredDesign => r !== undefined);
+  const candidates = points.slice(0, Math.max(s.top * 3, s.top)).map((p) => tryScore(ds.decode(p)));
+  const ranked = candidates.filter((r): r is ScoredDesign => r !== undefined);
+  const unrankable = candidates.length - ranked.length;
   if (rule.kind === 'weighted_sum') ranked.sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score! - a.score!);
   const naive = tryScore(naiveDesign(ds));
   return {

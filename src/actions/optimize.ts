@@ -107,7 +107,7 @@ export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
 }
 
 /** The files every finished run folder holds. */
-export const RUN_FILES = ['manifest.json', 'history.jsonl', 'designs/', 'ranking.csv', 'best.xyz', 'best.pdb', 'job.json', 'run.log'];
+export const RUN_FILES = ['manifest.json', 'history.jsonl', 'designs/', 'ranking.csv', 'best.xyz', 'best.pdb', 'job.json', 'result.json', 'run.log'];
 
 /** Write manifest, history, ranked designs, ranking CSV and the best design's XYZ and PDB into a run folder. */
 export function writeRunFiles(folder: string, job: OptimizationJob, outcome: OptimizationOutcome, history: string[], meta: { files?: { constraints: string; objective: string }; started: string; workers: number }): string[] {

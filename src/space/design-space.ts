@@ -5,7 +5,7 @@ import { degToRad } from '../physics/constants.js';
 import type { Site, Vec3 } from '../physics/types.js';
 import { SearchSpace } from '../search/space/space.js';
 import { scaffoldAnchors } from '../config/anchors.js';
-import { coneDirection, distance, normalize } from './geometry.js';
+import { coneDirection, normalize } from './geometry.js';
 import { feasibility, type Feasibility } from './feasibility.js';
 
 /** An anchor point of a scaffold (nm) with its local frame on a helical lattice. */
