@@ -4,7 +4,7 @@ import { Workspace } from '../linalg/workspace.js';
 import { diagonalInEigenbasis, type Eigenbasis, eigenbasis, multiplyByG, siteDiagonal, siteDiagonalPair, symmetricInEigenbasis } from './eigenbasis.js';
 import { hsrEigenvectors } from './hsr-eigenvectors.js';
 import { populationCoupling } from './population-coupling.js';
-import { type ProbeOperator, probeImage, probeResidual, probeVector } from './residual-probe.js';
+import { makeProbe, type ProbeOperator, probeImage, probeResidual } from './residual-probe.js';
 import { unavailable } from './structured-errors.js';
 
 /** The hsr problem in plain arrays (validated by the caller). */
@@ -115,17 +115,17 @@ export function structuredHsr(p: HsrProblem): StructuredHsrResult {
   const op: ProbeOperator = { n, h, decay, gamma };
   let worst = 0;
   for (let t = 0; t < PROBES; t++) {
-    const z = probeVector(n, t, ws);
+    const z = makeProbe(e, op, t, ws);
     let zrz = 0; // z^H rho0 z
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
       const r = p.rho0[i * n + j];
       if (r !== 0) zrz += r * (z.zr[i] * z.zr[j] + z.zi[i] * z.zi[j]);
     }
-    const xz = probeImage(e, X.packed, z, ws);
-    worst = Math.max(worst, probeResidual(op, xz, X.diagonal, -zrz));
+    const xz = probeImage(e, z, X.packed, ws);
+    worst = Math.max(worst, probeResidual(z, gamma, xz, X.diagonal, -zrz));
     const zxz = xz.quadratic;
     // the second image reuses the first one's arrays
-    worst = Math.max(worst, probeResidual(op, probeImage(e, Y.packed, z, ws), Y.diagonal, -zxz));
+    worst = Math.max(worst, probeResidual(z, gamma, probeImage(e, z, Y.packed, ws), Y.diagonal, -zxz));
   }
   if (!(worst <= MAX_PROBE_RESIDUAL)) unavailable(`the residual check failed (relative residual ${worst.toExponential(2)} > ${MAX_PROBE_RESIDUAL})`);
   let efficiency = 0, lossFraction = 0, trapTime = 0;

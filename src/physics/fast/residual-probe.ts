@@ -11,31 +11,44 @@ export interface ProbeOperator {
   readonly gamma: number;
 }
 
-/** A probe vector z and X z for a solution X = V Y V^H. */
-export interface ProbeImage {
+/**
+ * A fixed probe vector z with what every check against it shares: a = V^H z (so that X z = V (Y a) for
+ * X = V Y V^H), w = A^H z = i H z - K' z / 2 and |w|, and |z_k|^2.
+ */
+export interface Probe {
   readonly zr: Float64Array;
   readonly zi: Float64Array;
-  /** X z */
+  readonly ar: Float64Array;
+  readonly ai: Float64Array;
+  readonly wr: Float64Array;
+  readonly wi: Float64Array;
+  readonly z2: Float64Array;
+  readonly wNorm: number;
+}
+
+/** X z for a solution X = V Y V^H, and z^H X z (real for Hermitian X). */
+export interface ProbeImage {
   readonly xr: Float64Array;
   readonly xi: Float64Array;
-  /** z^H X z (real for Hermitian X). */
   readonly quadratic: number;
 }
 
-/** Fixed pseudo-random complex probe vectors (an LCG with a fixed seed: runs are reproducible). */
-export function probeVector(n: number, index: number, ws?: Workspace): { zr: Float64Array; zi: Float64Array } {
-  const zr = scratch(ws, 'probe.zr', n), zi = scratch(ws, 'probe.zi', n);
-  let s = (0x2545f491 + 977 * index) >>> 0;
-  const next = () => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s / 4294967296 - 0.5; };
-  for (let k = 0; k < n; k++) { zr[k] = next(); zi[k] = next(); }
-  return { zr, zi };
-}
-
-/** X z for X = V Y V^H with Y packed (eigenbasis.ts), in O(N^2). With a workspace, the next call reuses its arrays. */
-export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array; zi: Float64Array }, ws?: Workspace): ProbeImage {
-  const { n } = e;
+/**
+ * Probe number `index` for an eigenbasis and operator, in O(N^2): z from an LCG with a fixed seed (runs are
+ * reproducible). With a workspace, the next call reuses its arrays.
+ */
+export function makeProbe(e: Eigenbasis, op: ProbeOperator, index: number, ws?: Workspace): Probe {
+  const { n, h, decay } = op;
   const { re: vr, im: vi } = e.vectors;
-  const { zr, zi } = z;
+  const zr = scratch(ws, 'probe.zr', n), zi = scratch(ws, 'probe.zi', n), z2 = scratch(ws, 'probe.z2', n);
+  let s = (0x2545f491 + 977 * index) >>> 0;
+  for (let k = 0; k < n; k++) {
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    zr[k] = s / 4294967296 - 0.5;
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    zi[k] = s / 4294967296 - 0.5;
+    z2[k] = zr[k] * zr[k] + zi[k] * zi[k];
+  }
   // a = V^H z
   const ar = scratch(ws, 'probe.ar', n), ai = scratch(ws, 'probe.ai', n);
   for (let k = 0; k < n; k++) {
@@ -46,6 +59,25 @@ export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array
       ai[i] += pr * ci + pi * cr;
     }
   }
+  // w = A^H z: (A^H z)_k = i (H z)_k - K'_k / 2 z_k
+  const wr = scratch(ws, 'probe.wr', n), wi = scratch(ws, 'probe.wi', n);
+  let w2 = 0;
+  for (let k = 0; k < n; k++) {
+    let hr = 0, hi = 0;
+    const rk = k * n;
+    for (let j = 0; j < n; j++) { const c = h[rk + j]; hr += c * zr[j]; hi += c * zi[j]; }
+    wr[k] = -hi - 0.5 * decay[k] * zr[k];
+    wi[k] = hr - 0.5 * decay[k] * zi[k];
+    w2 += wr[k] * wr[k] + wi[k] * wi[k];
+  }
+  return { zr, zi, ar, ai, wr, wi, z2, wNorm: Math.sqrt(w2) };
+}
+
+/** X z for X = V Y V^H with Y packed (eigenbasis.ts), in O(N^2). With a workspace, the next call reuses its arrays. */
+export function probeImage(e: Eigenbasis, probe: Probe, y: Float64Array, ws?: Workspace): ProbeImage {
+  const { n } = e;
+  const { re: vr, im: vi } = e.vectors;
+  const { ar, ai, zr, zi } = probe;
   // b = Y a, Y Hermitian packed
   const br = scratch(ws, 'probe.br', n), bi = scratch(ws, 'probe.bi', n);
   for (let i = 0; i < n; i++) { br[i] = y[i] * ar[i]; bi[i] = y[i] * ai[i]; }
@@ -74,36 +106,30 @@ export function probeImage(e: Eigenbasis, y: Float64Array, z: { zr: Float64Array
     xr[k] = sr; xi[k] = si;
     quadratic += zr[k] * sr + zi[k] * si;
   }
-  return { zr, zi, xr, xi, quadratic };
+  return { xr, xi, quadratic };
 }
 
 /**
  * Relative residual of L(X) = B seen by one probe: |z^H (L(X) - B) z| divided by the sum of the sizes of
- * the terms, where z^H L(X) z = 2 Re((A^H z)^H X z) + gamma sum_k |z_k|^2 X_kk, A^H = i H - K'/2.
+ * the terms, where z^H L(X) z = 2 Re((A^H z)^H X z) + gamma sum_k |z_k|^2 X_kk. O(N).
  * For Hermitian R = L(X) - B and a random z, E|z^H R z|^2 = |tr R|^2 + ||R||_F^2, so a few probes estimate
  * the residual's size in O(N^2) each (randomized verification in the manner of Freivalds, 1977; Hutchinson,
  * Commun. Stat. Simul. Comput. 18, 1059 (1989), for trace estimation by quadratic forms).
  * `rhs` is z^H B z, `diagonal` the site populations X_kk.
  */
-export function probeResidual(op: ProbeOperator, img: ProbeImage, diagonal: Float64Array, rhs: number): number {
-  const { n, h, decay, gamma } = op;
-  const { zr, zi, xr, xi } = img;
-  let cross = 0, az2 = 0, xz2 = 0, deph = 0, dephSize = 0;
+export function probeResidual(probe: Probe, gamma: number, img: ProbeImage, diagonal: Float64Array, rhs: number): number {
+  const { wr, wi, z2 } = probe;
+  const { xr, xi } = img;
+  const n = wr.length;
+  let cross = 0, xz2 = 0, deph = 0, dephSize = 0;
   for (let k = 0; k < n; k++) {
-    // (A^H z)_k = i (H z)_k - K'_k / 2 z_k
-    let hr = 0, hi = 0;
-    const rk = k * n;
-    for (let j = 0; j < n; j++) { const c = h[rk + j]; hr += c * zr[j]; hi += c * zi[j]; }
-    const wr = -hi - 0.5 * decay[k] * zr[k], wi = hr - 0.5 * decay[k] * zi[k];
     // Re(conj(w) x)
-    cross += wr * xr[k] + wi * xi[k];
-    az2 += wr * wr + wi * wi;
+    cross += wr[k] * xr[k] + wi[k] * xi[k];
     xz2 += xr[k] * xr[k] + xi[k] * xi[k];
-    const z2 = zr[k] * zr[k] + zi[k] * zi[k];
-    deph += z2 * diagonal[k];
-    dephSize += z2 * Math.abs(diagonal[k]);
+    deph += z2[k] * diagonal[k];
+    dephSize += z2[k] * Math.abs(diagonal[k]);
   }
   const lhs = 2 * cross + gamma * deph;
-  const scale = 2 * Math.sqrt(az2 * xz2) + gamma * dephSize + Math.abs(rhs);
+  const scale = 2 * probe.wNorm * Math.sqrt(xz2) + gamma * dephSize + Math.abs(rhs);
   return scale > 0 ? Math.abs(lhs - rhs) / scale : 0;
 }

@@ -9,10 +9,12 @@ const EPS = Number.EPSILON;
  * 377 (1968)) in complex arithmetic, as proposed for complex symmetric matrices by Cullum and Willoughby,
  * SIAM J. Matrix Anal. Appl. 17, 83 (1996). Diagonal d (length m) and off-diagonal e (e[k] couples k, k+1)
  * are overwritten: d receives the eigenvalues (unordered), e is destroyed.
+ * With `z` (m x m row-major, usually I on entry) the rotations are also applied to its columns, as EISPACK's
+ * imtql2 does: on return column j of z is the eigenvector of d[j] (of T when z was I), with z^T z unchanged.
  * Throws NumericalError on a near-isotropic rotation (f^2 + g^2 close to 0 while f, g are not) or when an
  * eigenvalue takes more than 30 sweeps; callers fall back to a unitary method.
  */
-export function complexSymmetricQl(dr: Float64Array, di: Float64Array, er: Float64Array, ei: Float64Array): void {
+export function complexSymmetricQl(dr: Float64Array, di: Float64Array, er: Float64Array, ei: Float64Array, z?: { re: Float64Array; im: Float64Array }): void {
   const m = dr.length;
   if (m === 0) return;
   er[m - 1] = 0; ei[m - 1] = 0;
@@ -70,11 +72,23 @@ export function complexSymmetricQl(dr: Float64Array, di: Float64Array, er: Float
         pr = sr * rr - si * ri; pi = sr * ri + si * rr;
         dr[i + 1] = gr + pr; di[i + 1] = gi + pi;
         gr = cr * rr - ci * ri - br; gi = cr * ri + ci * rr - bi;
+        if (z) rotateColumns(z.re, z.im, m, i, sr, si, cr, ci);
       }
       if (underflow) continue;
       dr[l] -= pr; di[l] -= pi;
       er[l] = gr; ei[l] = gi;
       er[mm] = 0; ei[mm] = 0;
     }
+  }
+}
+
+/** Columns i, i + 1 of z (m x m row-major) <- (c z_i - s z_i+1, s z_i + c z_i+1), complex s and c (imtql2). */
+function rotateColumns(zr: Float64Array, zi: Float64Array, m: number, i: number, sr: number, si: number, cr: number, ci: number): void {
+  for (let k = i; k < m * m; k += m) {
+    const ar = zr[k], ai = zi[k], fr = zr[k + 1], fi = zi[k + 1];
+    zr[k + 1] = sr * ar - si * ai + cr * fr - ci * fi;
+    zi[k + 1] = sr * ai + si * ar + cr * fi + ci * fr;
+    zr[k] = cr * ar - ci * ai - (sr * fr - si * fi);
+    zi[k] = cr * ai + ci * ar - (sr * fi + si * fr);
   }
 }

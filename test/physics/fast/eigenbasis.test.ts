@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { diagonalInEigenbasis, eigenbasis, multiplyByG, siteDiagonal, symmetricInEigenbasis } from '../../../src/physics/fast/eigenbasis.js';
 import { populationCoupling } from '../../../src/physics/fast/population-coupling.js';
-import { probeImage, probeResidual, probeVector } from '../../../src/physics/fast/residual-probe.js';
+import { makeProbe, probeImage, probeResidual } from '../../../src/physics/fast/residual-probe.js';
 import { type ComplexMatrix, complexMatMul, complexZeros } from '../../../src/physics/linalg/complex-dense.js';
 import { complexLuFactor, complexLuSolve } from '../../../src/physics/linalg/complex-lu.js';
 import { complexSymmetricEigen } from '../../../src/physics/linalg/complex-symmetric-eigen.js';
@@ -121,12 +121,12 @@ describe('eigenbasis tables of the structured hsr solver (defining identities)',
     const b = symmetricInEigenbasis(p.e, rho0, new Float64Array(n * n)).map((x) => -x);
     const x = multiplyByG(p.e, b);
     const op = { n, h: p.h, decay: p.k.map((k) => k + p.gamma), gamma: 0 };
-    const z = probeVector(n, 0);
+    const z = makeProbe(p.e, op, 0);
     const zrz = -(z.zr[0] ** 2 + z.zi[0] ** 2);
     const diag = siteDiagonal(p.e, x, new Float64Array(n));
-    expect(probeResidual(op, probeImage(p.e, x, z), diag, zrz)).toBeLessThan(1e-13);
+    expect(probeResidual(z, 0, probeImage(p.e, z, x), diag, zrz)).toBeLessThan(1e-13);
     const bad = Float64Array.from(x);
     bad[n + 3] += 1e-6 * Math.max(...x.map(Math.abs));
-    expect(probeResidual(op, probeImage(p.e, bad, z), siteDiagonal(p.e, bad, new Float64Array(n)), zrz)).toBeGreaterThan(1e-9);
+    expect(probeResidual(z, 0, probeImage(p.e, z, bad), siteDiagonal(p.e, bad, new Float64Array(n)), zrz)).toBeGreaterThan(1e-9);
   });
 });
