@@ -1,9 +1,10 @@
 import type { Excitons } from '../excitons.js';
-import { complexLuFactor, complexLuSolve } from '../linalg/complex-lu.js';
+import { Scratch } from '../linalg/dense.js';
+import { luFactor, luSolveInPlace, type LuFactors } from '../linalg/lu.js';
 import { toExcitonBasis } from '../models/redfield.js';
 import { notApplicable, unavailable } from './structured-errors.js';
 import { redfieldRates } from './redfield-rates.js';
-import { applyInverse, applyInverseSparse, secularBlocks } from './secular-blocks.js';
+import { applyInverse, applyInverseSparseReal, secularBlocks, type SecularBlocks } from './secular-blocks.js';
 
 /** Sites whose sink rate differs from the common one that the structured redfield solver accepts. */
 export const MAX_SPECIAL_SITES = 4;
@@ -26,122 +27,61 @@ export interface RedfieldProblem {
 /**
  * Efficiency, loss and transfer time of the secular Redfield model in O(N^3) when the sink rate (loss +
  * trap) is the same on all but a few sites. In the exciton basis the generator is
- *   L(X) = D(X) - 1/2 sum_s delta_s (c_s c_s^T X + X c_s c_s^T),
- * D the block-diagonal secular part with the common sink kappa (secular-blocks.ts), c_s the exciton
- * amplitudes of special site s and delta_s its extra sink. The second term has rank 2N per special site
- * (X -> (X^T c_s, X c_s) and back), so the Sherman-Morrison-Woodbury identity (Hager, SIAM Rev. 31, 221
- * (1989))
- *   L^-1 = D^-1 - D^-1 U (I + V^T D^-1 U)^-1 V^T D^-1
- * needs a 2Nr x 2Nr capacitance matrix. U of a unit vector is one column or one row of a matrix, so each of
- * its columns needs D^-1 on N elements only: O(N^2 r^2) in all after the O(N^3) inversion of the population
- * block. Each solve is then O(N^2), and the residual of L(X) = B is checked exactly in O(N^2 r) plus the
- * couplings.
+ *   L(X) = D(X) - 1/2 sum_s delta_s (P_s X + X P_s),   P_s = c_s c_s^T,
+ * D the block-diagonal secular part with the common sink kappa (secular-blocks.ts), c_s the (real) exciton
+ * amplitudes of special site s and delta_s its extra sink. The right-hand sides and so the solutions are
+ * Hermitian (L and D map Hermitian matrices to Hermitian ones), and for a Hermitian X
+ *   P_s X + X P_s = c_s z_s^H + z_s c_s^T,   z_s = X c_s,
+ * so the second term is fixed by one complex N-vector, 2N reals, per special site. Writing
+ * M_s(z) = c_s z^H + z c_s^T (real-linear in z), the Sherman-Morrison-Woodbury identity (Hager, SIAM Rev. 31,
+ * 221 (1989)) restricted to Hermitian matrices reads
+ *   X = X0 + D^-1 sum_s (delta_s / 2) M_s(z_s),   X0 = D^-1 B,   (I + K) z = (X0 c_t)_t,
+ * K the real 2Nr x 2Nr capacitance map z -> ([D^-1 sum_s -(delta_s / 2) M_s(z_s)] c_t)_t. (I + K) is
+ * singular exactly when L is on Hermitian matrices. Since D^-1(X^H) = D^-1(X)^H, the columns of K for
+ * z = e_b and z = i e_b both follow from P = D^-1(c_s e_b^T) (one column of a matrix: D^-1 touches only the
+ * blocks of those N elements): they are the readouts of P + P^H and i (P^H - P). Building K is O(N^2 r^2)
+ * after the O(N^3) inversion of the population block, its real LU O((2Nr)^3), each solve O(N^2 r), and the
+ * residual of L(X) = B is checked exactly in O(N^2 r) plus the couplings.
  * Not applicable (NumericalError, code STRUCTURED_NOT_APPLICABLE) when more than MAX_SPECIAL_SITES sites differ
  * (per-site lifetimes make the correction full rank) or when there is no common sink (kappa = 0: the
- * population block of D conserves population and is singular).
+ * population block of D conserves population and is singular). Scratch arrays are reused between calls (one
+ * set per thread); nothing returned lives in them.
  */
 export function structuredRedfield(p: RedfieldProblem): { efficiency: number; lossFraction: number; transferTime: number; balanceResidual: number } {
   const { ex } = p;
   const { n, coefficients: C } = ex;
   const len = n * n;
-  const sink = Float64Array.from(p.lossRates, (k, m) => k + p.trapRates[m]);
-  const kappa = commonValue(sink);
-  const special: number[] = [];
-  for (let m = 0; m < n; m++) if (sink[m] !== kappa) special.push(m);
-  if (special.length > MAX_SPECIAL_SITES) notApplicable(`the sink rate (loss + trap) differs from the common one at ${special.length} sites; the structured redfield solver takes at most ${MAX_SPECIAL_SITES} (per-site lifetimes make the trap and loss term full rank)`);
+  const sink = scratch.f64('sink', n);
+  for (let m = 0; m < n; m++) sink[m] = p.lossRates[m] + p.trapRates[m];
+  const kappa = commonValue(sink, n);
+  const special = scratch.i32('special', n);
+  let r = 0;
+  for (let m = 0; m < n; m++) if (sink[m] !== kappa) special[r++] = m;
+  if (r > MAX_SPECIAL_SITES) notApplicable(`the sink rate (loss + trap) differs from the common one at ${r} sites; the structured redfield solver takes at most ${MAX_SPECIAL_SITES} (per-site lifetimes make the trap and loss term full rank)`);
   if (!(kappa > 0)) notApplicable('there is no loss common to the sites (kappa = 0), which the structured redfield solver needs');
   const rates = redfieldRates(ex, p.reorganization, p.temperature, p.cutoff, p.secularFraction);
   const D = secularBlocks(rates, kappa);
-  const r = special.length, q = 2 * n * r;
-  // c_s (exciton amplitudes of the special sites) and -delta_s / 2
-  const cs = special.map((m) => C.subarray(m * n, m * n + n));
-  const half = special.map((m) => -0.5 * (sink[m] - kappa));
-  const tr = new Float64Array(len), ti = new Float64Array(len), ur = new Float64Array(len), ui = new Float64Array(len);
-  /** (X^T c_s, X c_s) for every special s, into out (length q, split). */
-  const readout = (xr: Float64Array, xi: Float64Array, outR: Float64Array, outI: Float64Array) => {
-    for (let t = 0; t < r; t++) {
-      const c = cs[t], yo = 2 * t * n, zo = yo + n;
-      for (let j = 0; j < n; j++) { outR[yo + j] = 0; outI[yo + j] = 0; }
-      for (let i = 0; i < n; i++) {
-        const ri = i * n, ci = c[i];
-        let zr = 0, zi = 0;
-        for (let j = 0; j < n; j++) {
-          const a = xr[ri + j], b = xi[ri + j];
-          zr += a * c[j]; zi += b * c[j];
-          outR[yo + j] += ci * a; outI[yo + j] += ci * b;
-        }
-        outR[zo + i] = zr; outI[zo + i] = zi;
-      }
-    }
-  };
-  /** U applied to (y_s, z_s): sum_s -delta_s/2 (c_s y_s^T + z_s c_s^T), into (xr, xi). */
-  const expand = (vr: Float64Array, vi: Float64Array, xr: Float64Array, xi: Float64Array) => {
-    xr.fill(0); xi.fill(0);
-    for (let t = 0; t < r; t++) {
-      const c = cs[t], h = half[t], yo = 2 * t * n, zo = yo + n;
-      for (let i = 0; i < n; i++) {
-        const ri = i * n, hc = h * c[i], zr = h * vr[zo + i], zi = h * vi[zo + i];
-        for (let j = 0; j < n; j++) {
-          xr[ri + j] += hc * vr[yo + j] + zr * c[j];
-          xi[ri + j] += hc * vi[yo + j] + zi * c[j];
-        }
-      }
-    }
-  };
-  // capacitance I + V^T D^-1 U, column by column: U of a unit vector is one column (y) or one row (z) of
-  // the matrix, so D^-1 touches only the blocks of those N elements
-  const cap = { n: q, re: new Float64Array(q * q), im: new Float64Array(q * q) };
-  const el = new Int32Array(n), vr = new Float64Array(n), vi = new Float64Array(n);
-  const touched: number[] = [];
-  const seen = new Uint8Array(len);
-  for (let t = 0; t < r; t++) {
-    for (let type = 0; type < 2; type++) {
-      for (let b = 0; b < n; b++) {
-        const col = (2 * t + type) * n + b;
-        for (let a = 0; a < n; a++) { el[a] = type === 0 ? a * n + b : b * n + a; vr[a] = half[t] * cs[t][a]; }
-        touched.length = 0;
-        applyInverseSparse(D, el, vr, vi, n, ur, ui, touched);
-        for (const f of touched) {
-          if (seen[f]) continue;
-          seen[f] = 1;
-          const i = (f / n) | 0, j = f % n, xr = ur[f], xi = ui[f];
-          for (let t2 = 0; t2 < r; t2++) {
-            const c = cs[t2], yo = (2 * t2 * n + j) * q + col, zo = ((2 * t2 + 1) * n + i) * q + col;
-            // (X^T c)_j += c_i X_ij ; (X c)_i += X_ij c_j
-            cap.re[yo] += c[i] * xr; cap.im[yo] += c[i] * xi;
-            cap.re[zo] += c[j] * xr; cap.im[zo] += c[j] * xi;
-          }
-        }
-        for (const f of touched) { seen[f] = 0; ur[f] = 0; ui[f] = 0; }
-        cap.re[col * q + col] += 1;
-      }
+  const half = scratch.f64('half', r);
+  for (let t = 0; t < r; t++) half[t] = -0.5 * (sink[special[t]] - kappa);
+  const g: Correction = { D, C, n, r, special, half, lu: undefined };
+  if (r > 0) {
+    const q = 2 * n * r;
+    const cap = capacitance(g);
+    try {
+      g.lu = luFactor(cap, q, false, scratch.i32('pivots', q));
+    } catch {
+      unavailable('the Woodbury capacitance matrix of the trap term is singular');
     }
   }
-  let lu;
-  try {
-    lu = complexLuFactor(cap);
-  } catch {
-    unavailable('the Woodbury capacitance matrix of the trap term is singular');
-  }
-  const vR = new Float64Array(q), vI = new Float64Array(q);
-  /** X = L^-1 B (B split), into (xr, xi). */
-  const solve = (br: Float64Array, bi: Float64Array, xr: Float64Array, xi: Float64Array) => {
-    applyInverse(D, br, bi, xr, xi);
-    readout(xr, xi, vR, vI);
-    complexLuSolve(lu, vR, vI);
-    expand(vR, vI, tr, ti);
-    applyInverse(D, tr, ti, ur, ui);
-    for (let k = 0; k < len; k++) { xr[k] -= ur[k]; xi[k] -= ui[k]; }
-  };
   // B = -C^T rho0 C (real), X = L^-1 B, Y = L^-1(-X)
-  const bR = toExcitonBasis(n, p.rho0, C), bI = new Float64Array(len);
+  const bR = toExcitonBasis(n, p.rho0, C, scratch.f64('bR', len), scratch.f64('tmp', len)), bI = scratch.zeros('bI', len);
   for (let k = 0; k < len; k++) bR[k] = -bR[k];
-  const xR = new Float64Array(len), xI = new Float64Array(len), yR = new Float64Array(len), yI = new Float64Array(len);
-  solve(bR, bI, xR, xI);
-  const mxR = xR.map((v) => -v), mxI = xI.map((v) => -v);
-  solve(mxR, mxI, yR, yI);
-  const generator = { D, sink, C };
-  const worst = Math.max(residual(generator, xR, xI, bR, bI), residual(generator, yR, yI, mxR, mxI));
+  const xR = scratch.f64('xR', len), xI = scratch.f64('xI', len), yR = scratch.f64('yR', len), yI = scratch.f64('yI', len);
+  solve(g, bR, bI, xR, xI);
+  const mxR = scratch.f64('mxR', len), mxI = scratch.f64('mxI', len);
+  for (let k = 0; k < len; k++) { mxR[k] = -xR[k]; mxI[k] = -xI[k]; }
+  solve(g, mxR, mxI, yR, yI);
+  const worst = Math.max(residual(g, sink, kappa, xR, xI, bR, bI), residual(g, sink, kappa, yR, yI, mxR, mxI));
   if (!(worst <= MAX_REDFIELD_RESIDUAL)) unavailable(`the residual check failed (relative residual ${worst.toExponential(2)} > ${MAX_REDFIELD_RESIDUAL})`);
   const efficiency = siteWeighted(n, C, p.trapRates, xR);
   const lossFraction = siteWeighted(n, C, p.lossRates, xR);
@@ -151,14 +91,119 @@ export function structuredRedfield(p: RedfieldProblem): { efficiency: number; lo
   return { efficiency, lossFraction, transferTime: efficiency > 0 ? trapTime / efficiency : Infinity, balanceResidual };
 }
 
+const scratch = new Scratch();
+
+/** The secular part and the low-rank sink correction of one problem. */
+interface Correction {
+  readonly D: SecularBlocks;
+  readonly C: Float64Array;
+  readonly n: number;
+  /** Number of special sites, their indices (first r entries) and -delta_s / 2. */
+  readonly r: number;
+  readonly special: Int32Array;
+  readonly half: Float64Array;
+  /** Real LU of the 2Nr x 2Nr capacitance matrix (none when r = 0). */
+  lu: LuFactors | undefined;
+}
+
+/**
+ * The capacitance matrix I + K (row-major, 2Nr x 2Nr, in scratch). Unknown z_t sits at 2Nt (real parts) and
+ * 2Nt + N (imaginary parts). For P = D^-1(-(delta_s / 2) c_s e_b^T) each entry P_ij = pr + i pi adds
+ * pr c_j + i pi c_j to (P c_t)_i and pr c_i - i pi c_i to (P^H c_t)_j; column z_s = e_b takes their sum,
+ * column z_s = i e_b i times their difference (P^H - P).
+ */
+function capacitance(g: Correction): Float64Array {
+  const { D, C, n, r, special, half } = g;
+  const len = n * n, q = 2 * n * r;
+  const A = scratch.zeros('cap', q * q);
+  let widest = 1;
+  for (let k = 0; k < D.blocks; k++) widest = Math.max(widest, D.start[k + 1] - D.start[k]);
+  const el = scratch.i32('el', n), v = scratch.f64('v', n), touched = scratch.i32('touched', n * widest);
+  const pr = scratch.zeros('pr', len), pi = scratch.zeros('pi', len);
+  const seen = scratch.i32('seen', len);
+  seen.fill(0, 0, len);
+  for (let s = 0; s < r; s++) {
+    const cs = special[s] * n, h = half[s];
+    for (let b = 0; b < n; b++) {
+      for (let a = 0; a < n; a++) { el[a] = a * n + b; v[a] = h * C[cs + a]; }
+      const count = applyInverseSparseReal(D, el, v, n, pr, pi, touched, 0);
+      const colRe = 2 * n * s + b, colIm = colRe + n;
+      for (let k = 0; k < count; k++) {
+        const f = touched[k];
+        if (seen[f]) continue;
+        seen[f] = 1;
+        const i = (f / n) | 0, j = f - i * n, xr = pr[f], xi = pi[f];
+        for (let t = 0; t < r; t++) {
+          const ct = special[t] * n, ci = C[ct + i], cj = C[ct + j];
+          const ri = (2 * n * t + i) * q, ii = ri + n * q, rj = (2 * n * t + j) * q, ij = rj + n * q;
+          const a1 = xr * cj, b1 = xi * cj, c1 = xr * ci, d1 = xi * ci;
+          A[ri + colRe] += a1; A[ii + colRe] += b1; A[rj + colRe] += c1; A[ij + colRe] -= d1;
+          A[ri + colIm] += b1; A[ii + colIm] -= a1; A[rj + colIm] += d1; A[ij + colIm] += c1;
+        }
+      }
+      for (let k = 0; k < count; k++) { const f = touched[k]; seen[f] = 0; pr[f] = 0; pi[f] = 0; }
+      A[colRe * q + colRe] += 1;
+      A[colIm * q + colIm] += 1;
+    }
+  }
+  return A;
+}
+
+/** z_t = X c_t for every special t, into u (real parts at 2Nt, imaginary at 2Nt + N). */
+function readout(g: Correction, xr: Float64Array, xi: Float64Array, u: Float64Array): void {
+  const { C, n, r, special } = g;
+  for (let t = 0; t < r; t++) {
+    const ct = special[t] * n, o = 2 * n * t;
+    for (let i = 0; i < n; i++) {
+      const ri = i * n;
+      let sr = 0, si = 0;
+      for (let j = 0; j < n; j++) { sr += xr[ri + j] * C[ct + j]; si += xi[ri + j] * C[ct + j]; }
+      u[o + i] = sr;
+      u[o + n + i] = si;
+    }
+  }
+}
+
+/** sum_s -(delta_s / 2) M_s(z_s) = sum_s -(delta_s / 2) (c_s z_s^H + z_s c_s^T), into (xr, xi). */
+function expand(g: Correction, u: Float64Array, xr: Float64Array, xi: Float64Array): void {
+  const { C, n, r, special, half } = g;
+  xr.fill(0, 0, n * n);
+  xi.fill(0, 0, n * n);
+  for (let t = 0; t < r; t++) {
+    const ct = special[t] * n, o = 2 * n * t, h = half[t];
+    for (let i = 0; i < n; i++) {
+      const ri = i * n, hc = h * C[ct + i], hzr = h * u[o + i], hzi = h * u[o + n + i];
+      for (let j = 0; j < n; j++) {
+        const cj = C[ct + j];
+        xr[ri + j] += hc * u[o + j] + hzr * cj;
+        xi[ri + j] += hzi * cj - hc * u[o + n + j];
+      }
+    }
+  }
+}
+
+/** X = L^-1 B for a Hermitian B (split), into (xr, xi). */
+function solve(g: Correction, br: Float64Array, bi: Float64Array, xr: Float64Array, xi: Float64Array): void {
+  const { D, n, lu } = g;
+  applyInverse(D, br, bi, xr, xi);
+  if (lu === undefined) return;
+  const len = n * n, u = scratch.f64('u', lu.n);
+  readout(g, xr, xi, u);
+  luSolveInPlace(lu, u);
+  const tr = scratch.f64('tr', len), ti = scratch.f64('ti', len), ur = scratch.f64('ur', len), ui = scratch.f64('ui', len);
+  expand(g, u, tr, ti);
+  applyInverse(D, tr, ti, ur, ui);
+  for (let k = 0; k < len; k++) { xr[k] -= ur[k]; xi[k] -= ui[k]; }
+}
+
 /** The value most entries share exactly (the first of equally common ones). */
-function commonValue(v: Float64Array): number {
+function commonValue(v: Float64Array, n: number): number {
   let best = v[0], bestCount = 0;
-  for (let i = 0; i < v.length; i++) {
+  for (let i = 0; i < n; i++) {
     let count = 0;
-    for (let j = 0; j < v.length; j++) if (v[j] === v[i]) count++;
+    for (let j = 0; j < n; j++) if (v[j] === v[i]) count++;
     if (count > bestCount) { best = v[i]; bestCount = count; }
-    if (2 * count > v.length) break;
+    if (2 * count > n) break;
   }
   return best;
 }
@@ -185,42 +230,41 @@ function siteWeighted(n: number, C: Float64Array, w: Float64Array, xr: Float64Ar
  * ||B - L(X)||_F over the size of the terms, with L(X) = D(X) - 1/2 sum_s delta_s {c_s c_s^T, X} written as
  * the diagonal of D, its kept couplings, and -1/2 {C^T diag(sink - kappa) C, X}. O(N^3).
  */
-function residual(g: { D: ReturnType<typeof secularBlocks>; sink: Float64Array; C: Float64Array }, xr: Float64Array, xi: Float64Array, br: Float64Array, bi: Float64Array): number {
-  const { D, C } = g;
-  const n = D.n, len = n * n;
-  const lr = new Float64Array(len), li = new Float64Array(len);
+function residual(g: Correction, sink: Float64Array, kappa: number, xr: Float64Array, xi: Float64Array, br: Float64Array, bi: Float64Array): number {
+  const { D, C, n } = g;
+  const len = n * n;
+  const lr = scratch.f64('lr', len), li = scratch.f64('li', len);
   let size = 0;
   for (let k = 0; k < len; k++) {
     lr[k] = D.diagRe[k] * xr[k] - D.diagIm[k] * xi[k];
     li[k] = D.diagRe[k] * xi[k] + D.diagIm[k] * xr[k];
     size += abs1(lr[k], li[k]);
   }
-  const { to, from, value } = D.couplings;
-  for (let t = 0; t < to.length; t++) {
+  const { count, to, from, value } = D.couplings;
+  for (let t = 0; t < count; t++) {
     lr[to[t]] += value[t] * xr[from[t]];
     li[to[t]] += value[t] * xi[from[t]];
     size += Math.abs(value[t]) * abs1(xr[from[t]], xi[from[t]]);
   }
   // the extra sink -1/2 sum_s delta_s (c_s c_s^T X + X c_s c_s^T), with c_s^T X and X c_s first (O(N^2) per site)
-  const kappa = commonValue(g.sink);
-  const yr = new Float64Array(n), yi = new Float64Array(n), zr = new Float64Array(n), zi = new Float64Array(n);
+  const yr = scratch.f64('ryr', n), yi = scratch.f64('ryi', n), zr = scratch.f64('rzr', n), zi = scratch.f64('rzi', n);
   for (let m = 0; m < n; m++) {
-    const h = -0.5 * (g.sink[m] - kappa);
+    const h = -0.5 * (sink[m] - kappa);
     if (h === 0) continue;
-    const c = C.subarray(m * n, m * n + n);
-    yr.fill(0); yi.fill(0);
+    const c = m * n;
+    yr.fill(0, 0, n); yi.fill(0, 0, n);
     for (let i = 0; i < n; i++) {
       let sr = 0, si = 0;
       for (let j = 0; j < n; j++) {
         const a = xr[i * n + j], b = xi[i * n + j];
-        sr += a * c[j]; si += b * c[j];
-        yr[j] += c[i] * a; yi[j] += c[i] * b;
+        sr += a * C[c + j]; si += b * C[c + j];
+        yr[j] += C[c + i] * a; yi[j] += C[c + i] * b;
       }
       zr[i] = sr; zi[i] = si;
     }
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
       const k = i * n + j;
-      const ar = h * (c[i] * yr[j] + zr[i] * c[j]), ai = h * (c[i] * yi[j] + zi[i] * c[j]);
+      const ar = h * (C[c + i] * yr[j] + zr[i] * C[c + j]), ai = h * (C[c + i] * yi[j] + zi[i] * C[c + j]);
       lr[k] += ar; li[k] += ai;
       size += abs1(ar, ai);
     }

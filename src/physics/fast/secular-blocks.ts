@@ -1,7 +1,7 @@
 import { NumericalError } from '../../errors.js';
 import { CM_TO_RAD_PER_PS } from '../constants.js';
-import type { ComplexMatrix } from '../linalg/complex-dense.js';
-import { complexLuFactor, complexLuInverse } from '../linalg/complex-lu.js';
+import { complexLuFactorInPlace, complexLuInverseInto } from '../linalg/complex-lu.js';
+import { Scratch } from '../linalg/dense.js';
 import { STRUCTURED_UNAVAILABLE } from './structured-errors.js';
 import type { RedfieldRates } from './redfield-rates.js';
 
@@ -13,10 +13,14 @@ import type { RedfieldRates } from './redfield-rates.js';
  * frequencies: sorted by w_ab, consecutive elements closer than the threshold share a block, and all
  * populations share one. 1 x 1 blocks keep their reciprocal, larger ones their explicit inverse (the
  * population block is N x N), so that D^-1 of a matrix with a few non-zero entries costs only the blocks
- * those entries touch.
+ * those entries touch. D maps Hermitian matrices to Hermitian ones (R_abcd = R_badc, w_ab = -w_ba), so
+ * D^-1(X^H) = D^-1(X)^H.
+ * The arrays live in module-level scratch (one set per thread): a result is valid until the next call.
  */
 export interface SecularBlocks {
   readonly n: number;
+  /** Number of blocks. */
+  readonly blocks: number;
   /** Elements (a * n + b) grouped by block: block k is members[start[k]..start[k+1]). */
   readonly members: Int32Array;
   readonly start: Int32Array;
@@ -26,36 +30,57 @@ export interface SecularBlocks {
   /** Reciprocal of the diagonal of D for elements in 1 x 1 blocks (re, im). */
   readonly invRe: Float64Array;
   readonly invIm: Float64Array;
-  /** Explicit inverses (row-major) of the larger blocks, by block index. */
-  readonly inverses: (ComplexMatrix | undefined)[];
-  /** Every kept off-diagonal coupling, for the residual: target element, source element, R value. */
-  readonly couplings: { readonly to: Int32Array; readonly from: Int32Array; readonly value: Float64Array };
+  /** Explicit inverses (row-major) of the larger blocks, packed: block k's s x s inverse starts at invAt[k]. */
+  readonly packRe: Float64Array;
+  readonly packIm: Float64Array;
+  readonly invAt: Int32Array;
+  /** Every kept off-diagonal coupling, for the residual: target element, source element, R value (first `count`). */
+  readonly couplings: { readonly count: number; readonly to: Int32Array; readonly from: Int32Array; readonly value: Float64Array };
   /** Diagonal of D by element (re, im). */
   readonly diagRe: Float64Array;
   readonly diagIm: Float64Array;
 }
 
+const scratch = new Scratch();
+let sortW = new Float64Array(0);
+let sortPop = new Uint8Array(0);
+/** Bohr frequency, then populations first, then element index: a total order. */
+const byFrequency = (x: number, y: number) => sortW[x] - sortW[y] || sortPop[y] - sortPop[x] || x - y;
+
 export function secularBlocks(rates: RedfieldRates, kappa: number): SecularBlocks {
   const { n, energies: E, secular } = rates;
   const len = n * n;
   // order elements by Bohr frequency, populations first among equal frequencies
-  const w = new Float64Array(len), pop = new Uint8Array(len);
+  const w = scratch.f64('w', len);
+  if (sortPop.length < len) sortPop = new Uint8Array(Math.max(len, 2 * sortPop.length));
+  const pop = sortPop;
   for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) { w[a * n + b] = E[a] - E[b]; pop[a * n + b] = a === b ? 1 : 0; }
-  const members = Int32Array.from({ length: len }, (_, e) => e);
-  members.sort((x, y) => w[x] - w[y] || pop[y] - pop[x] || x - y);
-  const startList: number[] = [0];
+  sortW = w;
+  const members = scratch.i32('members', len).subarray(0, len);
+  for (let e = 0; e < len; e++) members[e] = e;
+  members.sort(byFrequency);
+  const start = scratch.i32('start', len + 1);
+  let blocks = 0;
+  start[0] = 0;
   for (let t = 1; t < len; t++) {
     const p = members[t - 1], q = members[t];
-    if (!(w[q] - w[p] < secular || (pop[p] === 1 && pop[q] === 1))) startList.push(t);
+    if (!(w[q] - w[p] < secular || (pop[p] === 1 && pop[q] === 1))) start[++blocks] = t;
   }
-  startList.push(len);
-  const start = Int32Array.from(startList);
-  const blockOf = new Int32Array(len), position = new Int32Array(len);
-  const invRe = new Float64Array(len), invIm = new Float64Array(len);
-  const diagRe = new Float64Array(len), diagIm = new Float64Array(len);
-  const inverses: (ComplexMatrix | undefined)[] = [];
-  const to: number[] = [], from: number[] = [], value: number[] = [];
-  for (let k = 0; k + 1 < start.length; k++) {
+  start[++blocks] = len;
+  const blockOf = scratch.i32('blockOf', len), position = scratch.i32('position', len), invAt = scratch.i32('invAt', blocks);
+  let packed = 0;
+  for (let k = 0; k < blocks; k++) {
+    const s = start[k + 1] - start[k];
+    invAt[k] = packed;
+    if (s > 1) packed += s * s;
+  }
+  const invRe = scratch.zeros('invRe', len), invIm = scratch.zeros('invIm', len);
+  const diagRe = scratch.f64('diagRe', len), diagIm = scratch.f64('diagIm', len);
+  const packRe = scratch.f64('packRe', packed), packIm = scratch.f64('packIm', packed);
+  // at most s (s - 1) couplings per block
+  const to = scratch.i32('to', packed), from = scratch.i32('from', packed), value = scratch.f64('value', packed);
+  let count = 0;
+  for (let k = 0; k < blocks; k++) {
     const lo = start[k], s = start[k + 1] - lo;
     for (let i = 0; i < s; i++) { blockOf[members[lo + i]] = k; position[members[lo + i]] = i; }
     if (s === 1) {
@@ -66,40 +91,39 @@ export function secularBlocks(rates: RedfieldRates, kappa: number): SecularBlock
       if (!(m > 0)) throw new NumericalError('a secular Redfield element neither decays nor oscillates', STRUCTURED_UNAVAILABLE);
       invRe[e] = dr / m;
       invIm[e] = -di / m;
-      inverses.push(undefined);
       continue;
     }
-    const block: ComplexMatrix = { n: s, re: new Float64Array(s * s), im: new Float64Array(s * s) };
+    const ss = s * s;
+    const re = scratch.zeros('blockRe', ss), im = scratch.zeros('blockIm', ss);
     for (let i = 0; i < s; i++) {
       const ei = members[lo + i], a = (ei / n) | 0, b = ei % n;
       for (let j = 0; j < s; j++) {
         const ej = members[lo + j], c = (ej / n) | 0, d = ej % n;
         if (!rates.kept(a, b, c, d)) continue;
         const r = rates.element(a, b, c, d);
-        block.re[i * s + j] += r;
-        if (i !== j && r !== 0) { to.push(ei); from.push(ej); value.push(r); }
+        re[i * s + j] += r;
+        if (i !== j && r !== 0) { to[count] = ei; from[count] = ej; value[count] = r; count++; }
       }
-      block.re[i * s + i] -= kappa;
-      block.im[i * s + i] -= w[ei] * CM_TO_RAD_PER_PS;
-      diagRe[ei] = block.re[i * s + i];
-      diagIm[ei] = block.im[i * s + i];
+      re[i * s + i] -= kappa;
+      im[i * s + i] -= w[ei] * CM_TO_RAD_PER_PS;
+      diagRe[ei] = re[i * s + i];
+      diagIm[ei] = im[i * s + i];
     }
+    const at = invAt[k], pivots = scratch.i32('pivots', s);
     try {
-      inverses.push(complexLuInverse(complexLuFactor(block)));
+      complexLuFactorInPlace(s, re, im, pivots);
     } catch {
       throw new NumericalError(`a secular block of ${s} exciton elements is singular`, STRUCTURED_UNAVAILABLE);
     }
+    complexLuInverseInto(s, re, im, pivots, packRe.subarray(at, at + ss), packIm.subarray(at, at + ss));
   }
-  return {
-    n, members, start, blockOf, position, invRe, invIm, inverses, diagRe, diagIm,
-    couplings: { to: Int32Array.from(to), from: Int32Array.from(from), value: Float64Array.from(value) },
-  };
+  return { n, blocks, members, start, blockOf, position, invRe, invIm, packRe, packIm, invAt, diagRe, diagIm, couplings: { count, to, from, value } };
 }
 
 /** Y = D^-1 X for a complex N x N matrix X (split re, im, row-major), into (yr, yi). */
 export function applyInverse(D: SecularBlocks, xr: Float64Array, xi: Float64Array, yr: Float64Array, yi: Float64Array): void {
-  const { members, start, invRe, invIm, inverses } = D;
-  for (let k = 0; k + 1 < start.length; k++) {
+  const { members, start, invRe, invIm, packRe, packIm, invAt, blocks } = D;
+  for (let k = 0; k < blocks; k++) {
     const lo = start[k], s = start[k + 1] - lo;
     if (s === 1) {
       const e = members[lo], ar = xr[e], ai = xi[e], br = invRe[e], bi = invIm[e];
@@ -107,12 +131,12 @@ export function applyInverse(D: SecularBlocks, xr: Float64Array, xi: Float64Arra
       yi[e] = ar * bi + ai * br;
       continue;
     }
-    const inv = inverses[k]!;
+    const at = invAt[k];
     for (let i = 0; i < s; i++) {
       let sr = 0, si = 0;
-      const ri = i * s;
+      const ri = at + i * s;
       for (let j = 0; j < s; j++) {
-        const e = members[lo + j], ar = inv.re[ri + j], ai = inv.im[ri + j], br = xr[e], bi = xi[e];
+        const e = members[lo + j], ar = packRe[ri + j], ai = packIm[ri + j], br = xr[e], bi = xi[e];
         sr += ar * br - ai * bi;
         si += ar * bi + ai * br;
       }
@@ -123,28 +147,29 @@ export function applyInverse(D: SecularBlocks, xr: Float64Array, xi: Float64Arra
 }
 
 /**
- * D^-1 of a matrix whose non-zero entries are `count` (element, re, im) triples, accumulated into the dense
- * (yr, yi), which must be zero on entry; the elements written are appended to `touched` (duplicates allowed).
- * Costs the sizes of the blocks the entries fall in.
+ * D^-1 of a matrix whose non-zero entries are `count` real (element, value) pairs, accumulated into the dense
+ * (yr, yi), which must be zero on entry; the elements written are appended to touched[touchedCount..] (duplicates
+ * allowed) and the new count is returned. Costs the sizes of the blocks the entries fall in.
  */
-export function applyInverseSparse(D: SecularBlocks, el: Int32Array, vr: Float64Array, vi: Float64Array, count: number, yr: Float64Array, yi: Float64Array, touched: number[]): void {
-  const { members, start, blockOf, position, invRe, invIm, inverses } = D;
+export function applyInverseSparseReal(D: SecularBlocks, el: Int32Array, v: Float64Array, count: number, yr: Float64Array, yi: Float64Array, touched: Int32Array, touchedCount: number): number {
+  const { members, start, blockOf, position, invRe, invIm, packRe, packIm, invAt } = D;
+  let c = touchedCount;
   for (let t = 0; t < count; t++) {
-    const e = el[t], ar = vr[t], ai = vi[t];
+    const e = el[t], a = v[t];
     const k = blockOf[e], lo = start[k], s = start[k + 1] - lo;
     if (s === 1) {
-      const br = invRe[e], bi = invIm[e];
-      yr[e] += ar * br - ai * bi;
-      yi[e] += ar * bi + ai * br;
-      touched.push(e);
+      yr[e] += a * invRe[e];
+      yi[e] += a * invIm[e];
+      touched[c++] = e;
       continue;
     }
-    const inv = inverses[k]!, j = position[e];
+    const at = invAt[k] + position[e];
     for (let i = 0; i < s; i++) {
-      const br = inv.re[i * s + j], bi = inv.im[i * s + j], f = members[lo + i];
-      yr[f] += ar * br - ai * bi;
-      yi[f] += ar * bi + ai * br;
-      touched.push(f);
+      const f = members[lo + i];
+      yr[f] += a * packRe[at + i * s];
+      yi[f] += a * packIm[at + i * s];
+      touched[c++] = f;
     }
   }
+  return c;
 }

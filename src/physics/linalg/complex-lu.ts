@@ -13,8 +13,13 @@ export interface ComplexLu {
  */
 export function complexLuFactor(a: ComplexMatrix): ComplexLu {
   const lu = complexCopy(a);
-  const { n, re, im } = lu;
-  const pivots = new Int32Array(n);
+  const pivots = new Int32Array(lu.n);
+  complexLuFactorInPlace(lu.n, lu.re, lu.im, pivots);
+  return { lu, pivots };
+}
+
+/** complexLuFactor on the n x n matrix (re, im), overwritten by its factors; the pivots go to `pivots`. */
+export function complexLuFactorInPlace(n: number, re: Float64Array, im: Float64Array, pivots: Int32Array): void {
   for (let k = 0; k < n; k++) {
     let p = k, best = -1;
     for (let i = k; i < n; i++) {
@@ -48,7 +53,6 @@ export function complexLuFactor(a: ComplexMatrix): ComplexLu {
       }
     }
   }
-  return { lu, pivots };
 }
 
 /**
@@ -56,14 +60,22 @@ export function complexLuFactor(a: ComplexMatrix): ComplexLu {
  * with L, back substitution with U, then the column swaps of P).
  */
 export function complexLuInverse(f: ComplexLu): ComplexMatrix {
-  const { lu, pivots } = f;
-  const { n, re, im } = lu;
-  // X = U^-1 L^-1 P: start from P (row permutation of I), apply L^-1 and U^-1 to whole rows.
-  const x = complexZeros(n);
-  const { re: xr, im: xi } = x;
-  const perm = Int32Array.from({ length: n }, (_, i) => i);
-  for (let k = 0; k < n; k++) { const p = pivots[k]; const t = perm[k]; perm[k] = perm[p]; perm[p] = t; }
-  for (let i = 0; i < n; i++) xr[i * n + perm[i]] = 1;
+  const x = complexZeros(f.lu.n);
+  complexLuInverseInto(f.lu.n, f.lu.re, f.lu.im, f.pivots, x.re, x.im);
+  return x;
+}
+
+/** complexLuInverse of the factors (re, im, pivots) of an n x n matrix into (xr, xi), n * n entries each. */
+export function complexLuInverseInto(n: number, re: Float64Array, im: Float64Array, pivots: Int32Array, xr: Float64Array, xi: Float64Array): void {
+  // X = U^-1 L^-1 P: start from P (the row swaps applied to I), apply L^-1 and U^-1 to whole rows.
+  xr.fill(0, 0, n * n);
+  xi.fill(0, 0, n * n);
+  for (let i = 0; i < n; i++) xr[i * n + i] = 1;
+  for (let k = 0; k < n; k++) {
+    const p = pivots[k];
+    if (p === k) continue;
+    for (let j = 0; j < n; j++) { const t = xr[k * n + j]; xr[k * n + j] = xr[p * n + j]; xr[p * n + j] = t; }
+  }
   for (let i = 1; i < n; i++) {
     const ri = i * n;
     for (let k = 0; k < i; k++) {
@@ -98,7 +110,6 @@ export function complexLuInverse(f: ComplexLu): ComplexMatrix {
       xi[ri + j] = br * ii + bi * ir;
     }
   }
-  return x;
 }
 
 /** Solve A x = b in place (b split into re, im) with the LU factors of A. */

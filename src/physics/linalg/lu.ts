@@ -12,11 +12,11 @@ export interface LuFactors {
 
 /**
  * Factorize A = P L U (Doolittle, partial pivoting; Golub and Van Loan, Matrix Computations, alg. 3.4.1).
- * A is not modified. Throws NumericalError when a pivot is zero relative to the matrix scale.
+ * A is not modified unless `copy` is false (then it is overwritten by the factors); `pivots` (n entries) may be
+ * given to be reused. Throws NumericalError when a pivot is zero relative to the matrix scale.
  */
-export function luFactor(a: Float64Array, n: number, copy = true): LuFactors {
+export function luFactor(a: Float64Array, n: number, copy = true, pivots = new Int32Array(n)): LuFactors {
   const lu = copy ? Float64Array.from(a) : a;
-  const pivots = new Int32Array(n);
   let scale = 0;
   for (let i = 0; i < n * n; i++) scale = Math.max(scale, Math.abs(lu[i]));
   if (!Number.isFinite(scale)) throw new NumericalError('matrix has non-finite entries');
@@ -53,8 +53,12 @@ export function luFactor(a: Float64Array, n: number, copy = true): LuFactors {
 
 /** Solve A x = b with the factors of A. b is not modified; returns x. */
 export function luSolve(f: LuFactors, b: Float64Array): Float64Array {
+  return luSolveInPlace(f, Float64Array.from(b));
+}
+
+/** luSolve overwriting x (holding b on entry, its first n entries) with the solution; returns x. */
+export function luSolveInPlace(f: LuFactors, x: Float64Array): Float64Array {
   const { n, lu, pivots } = f;
-  const x = Float64Array.from(b);
   for (let k = 0; k < n; k++) {
     const p = pivots[k];
     if (p !== k) { const t = x[k]; x[k] = x[p]; x[p] = t; }

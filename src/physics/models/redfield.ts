@@ -113,15 +113,15 @@ function tensorTerm(R: RedfieldTensor): Term {
   };
 }
 
-/** C^T A C for a row-major N x N A and exciton coefficients C. */
-export function toExcitonBasis(n: number, A: Float64Array, C: Float64Array): Float64Array {
-  const tmp = new Float64Array(n * n);
+/** C^T A C for a row-major N x N A and exciton coefficients C; `out` and `tmp` (n * n entries) may be given to be reused. */
+export function toExcitonBasis(n: number, A: Float64Array, C: Float64Array, out = new Float64Array(n * n), tmp = new Float64Array(n * n)): Float64Array {
+  tmp.fill(0, 0, n * n);
+  out.fill(0, 0, n * n);
   for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) {
     const a = A[i * n + k];
     if (a === 0) continue;
     for (let b = 0; b < n; b++) tmp[i * n + b] += a * C[k * n + b];
   }
-  const out = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let a = 0; a < n; a++) {
     const c = C[i * n + a];
     if (c === 0) continue;
