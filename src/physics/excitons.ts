@@ -23,8 +23,9 @@ export function excitons(sys: ExcitonSystem): Excitons {
   const { values, vectors } = symmetricEigen(sys.hamiltonian, n);
   if (!sys.dipoles) return { n, energies: values, coefficients: vectors };
   const mu = sys.dipoles;
-  const dip = new Float64Array(n * 3);
-  const strength = new Float64Array(n);
+  // one backing store for the three arrays (typed arrays of more than 64 bytes are allocated off the heap)
+  const buf = new Float64Array(5 * n);
+  const dip = buf.subarray(0, 3 * n), strength = buf.subarray(3 * n, 4 * n), relative = buf.subarray(4 * n);
   let monomer = 0;
   for (let m = 0; m < n; m++) monomer += mu[m * 3] ** 2 + mu[m * 3 + 1] ** 2 + mu[m * 3 + 2] ** 2;
   monomer /= n;
@@ -34,6 +35,7 @@ export function excitons(sys: ExcitonSystem): Excitons {
       for (let k = 0; k < 3; k++) dip[a * 3 + k] += c * mu[m * 3 + k];
     }
     strength[a] = dip[a * 3] ** 2 + dip[a * 3 + 1] ** 2 + dip[a * 3 + 2] ** 2;
+    relative[a] = strength[a] / monomer;
   }
   return {
     n,
@@ -41,7 +43,7 @@ export function excitons(sys: ExcitonSystem): Excitons {
     coefficients: vectors,
     dipoles: dip,
     dipoleStrengths: strength,
-    relativeStrengths: strength.map((s) => s / monomer),
+    relativeStrengths: relative,
   };
 }
 
