@@ -1,7 +1,7 @@
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import { InputError, LumenfoldError } from '../errors.js';
-import { computeMetrics, ensembleEfficiencies, robustStats, type EnsembleEfficiencies, type MetricName } from '../metrics/evaluate.js';
+import { computeMetrics, ensembleEfficiencies, robustStats, type Design, type EnsembleEfficiencies, type MetricName } from '../metrics/evaluate.js';
 import { paretoVector, scoreMetricNames, weightedScore } from '../metrics/score.js';
 import { transportOptions } from '../physics/transport.js';
 import { designSpace } from '../space/design-space.js';
@@ -45,14 +45,15 @@ export function makeEvaluatorParts(c: ConstraintSet, o: Objective) {
       return { error: e.message };
     }
   };
-  const nominal = (p: Record<string, unknown>): NominalPart => guard(() => {
+  /** The design of a point, or the failure to decode it. */
+  const design = (p: Record<string, unknown>): Design | { error: string } => guard(() => {
     const d = ds.decode(p);
-    return { values: computeMetrics({ sites: d.sites, traps: d.traps }, settings, plain).values };
+    return { sites: d.sites, traps: d.traps };
   });
-  const ensemble = (p: Record<string, unknown>, from: number, to: number): EnsemblePart => guard(() => {
-    const d = ds.decode(p);
-    return { ens: ensembleEfficiencies({ sites: d.sites, traps: d.traps }, settings, t, from, to) };
-  });
+  const nominalOf = (d: Design | { error: string }): NominalPart => ('error' in d ? d : guard(() => ({ values: computeMetrics(d, settings, plain).values })));
+  const ensembleOf = (d: Design | { error: string }, from: number, to: number): EnsemblePart => ('error' in d ? d : guard(() => ({ ens: ensembleEfficiencies(d, settings, t, from, to) })));
+  const nominal = (p: Record<string, unknown>): NominalPart => nominalOf(design(p));
+  const ensemble = (p: Record<string, unknown>, from: number, to: number): EnsemblePart => ensembleOf(design(p), from, to);
   const fail = (error: string): Evaluation => ({ score: rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN), metrics: {}, error });
   const combine = (n: NominalPart, chunks: readonly EnsemblePart[]): Evaluation => {
     if (n.error !== undefined) return fail(n.error);
@@ -70,7 +71,7 @@ export function makeEvaluatorParts(c: ConstraintSet, o: Objective) {
     const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, values) : paretoVector(rule, values);
     return { score, metrics: values, ...(skipped ? { skippedSamples: skipped } : {}) };
   };
-  return { nominal, ensemble, combine, robust, samples };
+  return { design, nominalOf, ensembleOf, nominal, ensemble, combine, robust, samples };
 }
 
 /** The whole evaluation of one point on this thread. */
