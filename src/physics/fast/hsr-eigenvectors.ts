@@ -2,6 +2,7 @@ import { LumenfoldError } from '../../errors.js';
 import type { ComplexMatrix } from '../linalg/complex-dense.js';
 import { complexEigen } from '../linalg/complex-eigen.js';
 import { complexSymmetricEigen } from '../linalg/complex-symmetric-eigen.js';
+import { rankOneSymmetricEigen } from '../linalg/rank-one-eigen.js';
 import { cabs, csqrt } from '../linalg/complex-scalar.js';
 import type { Workspace } from '../linalg/workspace.js';
 
@@ -12,15 +13,16 @@ export interface HsrEigen {
   readonly vectors: ComplexMatrix;
   /** ||V||_1 ||V^T||_1 = cond_1(V). */
   readonly condition: number;
-  readonly solver: 'complex-symmetric' | 'unitary-qr';
+  readonly solver: 'rank-one' | 'complex-symmetric' | 'unitary-qr';
 }
 
 /** Eigenvalues closer than this fraction of the spectral radius are orthogonalized against each other. */
 const DEGENERATE = 1e-6;
 
 /**
- * Eigenvectors of the complex symmetric S = H - i K'/2, normalized so that V^T V = I: first by the complex
- * symmetric solver (complex orthogonal transformations, about 10 N^3), and when that breaks down or gives a
+ * Eigenvectors of the complex symmetric S = H - i K'/2, normalized so that V^T V = I: where K' is the same on
+ * all sites but one (one trap, a loss common to all), by the rank-one update of H's real eigenbasis
+ * (rank-one-eigen.ts); otherwise, or when that fails, by the complex symmetric solver (complex orthogonal transformations, about 10 N^3), and when that breaks down or gives a
  * basis worse conditioned than `maxCondition`, by the unitary QR solver (Hessenberg + shifted QR, about
  * 60 N^3) followed by normalization in the bilinear form and, inside groups of (nearly) equal eigenvalues,
  * Gram-Schmidt in that form. Returns a failure reason when neither gives a usable basis. The complex
@@ -28,6 +30,19 @@ const DEGENERATE = 1e-6;
  */
 export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number, ws?: Workspace): HsrEigen | { failure: string } {
   const reasons: string[] = [];
+  const one = rankOneShape(s);
+  if (one) {
+    try {
+      const e = rankOneSymmetricEigen(s.re, s.n, one.site, 0, one.rhoIm, ws);
+      for (let i = 0; i < s.n; i++) e.valuesIm[i] += one.sigma;
+      const condition = conditionOf(e.vectors);
+      if (condition <= maxCondition) return { valuesRe: e.valuesRe, valuesIm: e.valuesIm, vectors: e.vectors, condition, solver: 'rank-one' };
+      reasons.push(`rank-one eigenvectors ill-conditioned (cond ${condition.toExponential(1)})`);
+    } catch (err) {
+      if (!(err instanceof LumenfoldError)) throw err;
+      reasons.push(`rank-one eigen-solver: ${err.message}`);
+    }
+  }
   try {
     const e = complexSymmetricEigen(s, ws);
     const condition = conditionOf(e.vectors);
@@ -52,6 +67,26 @@ export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number, ws?: Wor
     reasons.push(`unitary QR eigen-solver: ${err.message}`);
   }
   return { failure: reasons.join('; ') };
+}
+
+/**
+ * S = Re S + i sigma I + i rhoIm e_t e_t^T: a real part and an imaginary part on the diagonal only, shared by
+ * every site but one (or by all: rhoIm = 0). Undefined for any other shape.
+ */
+function rankOneShape(s: ComplexMatrix): { site: number; sigma: number; rhoIm: number } | undefined {
+  const { n, im } = s;
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) if (i !== j && im[i * n + j] !== 0) return undefined;
+  if (n < 2) return undefined;
+  // the common value is the one of site 0 unless sites 0 and 1 differ and site 2 (if any) sides with site 1
+  const a = im[0], b = im[n + 1];
+  const sigma = a === b || n === 2 || im[2 * n + 2] === a ? a : b;
+  let site = -1;
+  for (let i = 0; i < n; i++) {
+    if (im[i * n + i] === sigma) continue;
+    if (site >= 0) return undefined;
+    site = i;
+  }
+  return site < 0 ? { site: 0, sigma, rhoIm: 0 } : { site, sigma, rhoIm: im[site * n + site] - sigma };
 }
 
 /** ||V||_1 ||V||_inf, which is cond_1(V) when V^-1 = V^T. */

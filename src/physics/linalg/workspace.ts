@@ -25,7 +25,9 @@ export class Workspace {
   /** Array `name` of `length` zeros. */
   zeros(name: string, length: number): Float64Array {
     const a = this.take(name, length);
-    a.fill(0);
+    // a plain loop beats the fill builtin's call overhead on the short arrays of small systems
+    if (length <= 64) for (let i = 0; i < length; i++) a[i] = 0;
+    else a.fill(0);
     return a;
   }
 }

@@ -47,10 +47,10 @@ export function trapRates(sys: ExcitonSystem, trapRate: number | readonly number
   return k;
 }
 
-/** Site-basis initial density matrix (real symmetric, row-major N x N, trace 1). */
-export function initialDensity(sys: ExcitonSystem, start: Start, ex: () => Excitons): Float64Array {
+/** Site-basis initial density matrix (real symmetric, row-major N x N, trace 1), into `out` when given (it is zeroed). */
+export function initialDensity(sys: ExcitonSystem, start: Start, ex: () => Excitons, out?: Float64Array): Float64Array {
   const { n } = sys;
-  const rho = new Float64Array(n * n);
+  const rho = out ? out.fill(0) : new Float64Array(n * n);
   switch (start.kind) {
     case 'site': {
       if (!Number.isInteger(start.site) || start.site < 0 || start.site >= n) {
@@ -70,7 +70,7 @@ export function initialDensity(sys: ExcitonSystem, start: Start, ex: () => Excit
       if (!Number.isInteger(start.state) || start.state < 0 || start.state >= n) {
         throw new InputError(`start exciton ${start.state + 1} is out of range: states are numbered 1 to ${n}`);
       }
-      return excitonMixture(e, Float64Array.from({ length: n }, (_, a) => (a === start.state ? 1 : 0)));
+      return excitonMixture(e, Float64Array.from({ length: n }, (_, a) => (a === start.state ? 1 : 0)), rho);
     }
     case 'light': {
       const e = ex();
@@ -83,15 +83,14 @@ export function initialDensity(sys: ExcitonSystem, start: Start, ex: () => Excit
       });
       const total = w.reduce((s, x) => s + x, 0);
       if (!(total > 0)) throw new ModelError('start "light": no exciton state absorbs (all dipole strengths are zero)');
-      return excitonMixture(e, w.map((x) => x / total));
+      return excitonMixture(e, w.map((x) => x / total), rho);
     }
   }
 }
 
-/** rho = sum_a w_a |a><a| in the site basis. */
-function excitonMixture(e: Excitons, w: Float64Array): Float64Array {
+/** rho = sum_a w_a |a><a| in the site basis, added into `rho` (zeros). */
+function excitonMixture(e: Excitons, w: Float64Array, rho: Float64Array): Float64Array {
   const { n, coefficients: C } = e;
-  const rho = new Float64Array(n * n);
   for (let a = 0; a < n; a++) {
     if (w[a] === 0) continue;
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) rho[i * n + j] += w[a] * C[i * n + a] * C[j * n + a];
@@ -105,22 +104,28 @@ function excitonMixture(e: Excitons, w: Float64Array): Float64Array {
  */
 export function checkExcitationCanLeave(n: number, connected: (i: number, j: number) => boolean, rho0: Float64Array, sinkRate: Float64Array): void {
   const comp = new Int32Array(n).fill(-1);
+  const stack = new Int32Array(n);
   let c = 0;
   for (let s = 0; s < n; s++) {
     if (comp[s] >= 0) continue;
-    const stack = [s];
+    let top = 0;
+    stack[top++] = s;
     comp[s] = c;
-    while (stack.length) {
-      const i = stack.pop()!;
-      for (let j = 0; j < n; j++) if (comp[j] < 0 && connected(i, j)) { comp[j] = c; stack.push(j); }
+    while (top > 0) {
+      const i = stack[--top];
+      for (let j = 0; j < n; j++) if (comp[j] < 0 && connected(i, j)) { comp[j] = c; stack[top++] = j; }
     }
     c++;
   }
+  // per component: does it hold initial population, and can it lose it?
+  const excited = new Uint8Array(c), leaves = new Uint8Array(c);
+  for (let m = 0; m < n; m++) {
+    if (rho0[m * n + m] > 1e-15) excited[comp[m]] = 1;
+    if (sinkRate[m] > 0) leaves[comp[m]] = 1;
+  }
   for (let k = 0; k < c; k++) {
-    const members = [...Array(n).keys()].filter((m) => comp[m] === k);
-    const excited = members.some((m) => rho0[m * n + m] > 1e-15);
-    const leaves = members.some((m) => sinkRate[m] > 0);
-    if (excited && !leaves) {
+    if (excited[k] && !leaves[k]) {
+      const members = [...Array(n).keys()].filter((m) => comp[m] === k);
       throw new ModelError(`the excitation can never leave: sites ${members.map((m) => m + 1).join(', ')} hold initial population but are not connected to a trap and have no loss`, 'trapped-excitation');
     }
   }

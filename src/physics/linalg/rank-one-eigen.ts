@@ -1,0 +1,175 @@
+import { NumericalError } from '../../errors.js';
+import type { ComplexEigen } from './complex-eigen.js';
+import { cabs, csqrt } from './complex-scalar.js';
+import { realSymmetricEigen } from './real-symmetric-eigen.js';
+import { scratch, type Workspace } from './workspace.js';
+
+const EPS = Number.EPSILON;
+const MAX_NEWTON = 30;
+
+/**
+ * Eigenvalues and complex orthogonal eigenvectors (V^T V = I) of S = B + rho e_t e_t^T, B real symmetric
+ * (row-major n x n) and rho complex: the shape of H - i K / 2 with one trap once the loss common to every
+ * site is shifted out. B = U D U^T first (realSymmetricEigen); in that basis S is D + rho w w^T with
+ * w = U^T e_t, whose eigenvalues solve the secular equation 1 + rho sum_j w_j^2 / (d_j - lambda) = 0 and
+ * whose eigenvectors are (D - lambda)^-1 w (Golub, SIAM Rev. 15, 318 (1973); Bunch, Nielsen and Sorensen,
+ * Numer. Math. 31, 31 (1978), for the real case). As in LAPACK's dlaed2, components with |rho w_j| below
+ * 8 eps ||S|| and pairs of (nearly) equal d_j are deflated first. Each remaining root is found by Newton's
+ * method as lambda = d_k + tau_k from the second-order start tau = rho w_k^2 / (1 + rho sum_j w_j^2 / (d_j - d_k)),
+ * with the differences d_j - lambda formed as (d_j - d_k) - tau (dlaed4's device, which keeps the components
+ * of the vector near its own pole accurate). Real arithmetic does the O(n^3) work; the roots cost O(n^2).
+ * Throws NumericalError (the caller falls back to a general method) when a root does not converge, two
+ * roots meet (Newton found one root twice, or S is close to an exceptional point), the roots miss the trace
+ * identity sum tau_k = rho sum w_k^2, or a vector is nearly isotropic.
+ * With a workspace the returned arrays live in it.
+ */
+export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rhoRe: number, rhoIm: number, ws?: Workspace): ComplexEigen {
+  const { values: d, vectors: U } = realSymmetricEigen(b, n, ws);
+  const w = scratch(ws, 'r1.w', n);
+  for (let j = 0; j < n; j++) w[j] = U[t * n + j];
+  let big = 0;
+  for (let j = 0; j < n; j++) big = Math.max(big, Math.abs(d[j]));
+  const rho = cabs(rhoRe, rhoIm);
+  const tol = 8 * EPS * (big + rho);
+  const active = deflate(d, w, U, n, rho, tol);
+  const m = active.length;
+  // roots: tau_k, lambda_k = d_k + tau_k, for every active k
+  const tr = scratch(ws, 'r1.tr', n), ti = scratch(ws, 'r1.ti', n);
+  for (let a = 0; a < m; a++) newtonRoot(d, w, active, a, rhoRe, rhoIm, tr, ti);
+  checkRoots(d, w, active, tr, ti, rhoRe, rhoIm, big + rho);
+  // eigenvectors in U's basis: deflated columns are unit vectors, active ones (D - lambda)^-1 w scaled to y^T y = 1
+  const yr = scratch(ws, 'r1.yr', n * n), yi = scratch(ws, 'r1.yi', n * n);
+  const valuesRe = scratch(ws, 'r1.lr', n), valuesIm = scratch(ws, 'r1.li', n);
+  for (let j = 0; j < n; j++) { valuesRe[j] = d[j]; yr[j * n + j] = 1; }
+  for (let a = 0; a < m; a++) {
+    const k = active[a];
+    yr[k * n + k] = 0;
+    valuesRe[k] = d[k] + tr[k];
+    valuesIm[k] = ti[k];
+    let qr = 0, qi = 0, qn = 0;
+    for (let c = 0; c < m; c++) {
+      const j = active[c];
+      // w_j / ((d_j - d_k) - tau_k)
+      const xr = d[j] - d[k] - tr[k], xi = -ti[k];
+      const den = xr * xr + xi * xi;
+      const vr = (w[j] * xr) / den, vi = (-w[j] * xi) / den;
+      yr[j * n + k] = vr; yi[j * n + k] = vi;
+      qr += vr * vr - vi * vi; qi += 2 * vr * vi; qn += vr * vr + vi * vi;
+    }
+    if (!(cabs(qr, qi) >= 1e-10 * qn)) throw new NumericalError(`rank-one eigen-solver: eigenvector ${k + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
+    const [sr, si] = csqrt(qr, qi);
+    const s2 = sr * sr + si * si, ir = sr / s2, ii = -si / s2;
+    for (let c = 0; c < m; c++) {
+      const o = active[c] * n + k, vr = yr[o], vi = yi[o];
+      yr[o] = vr * ir - vi * ii; yi[o] = vr * ii + vi * ir;
+    }
+  }
+  // V = U Y
+  const Vr = scratch(ws, 'r1.vr', n * n), Vi = scratch(ws, 'r1.vi', n * n);
+  for (let i = 0; i < n; i++) {
+    const ri = i * n;
+    for (let j = 0; j < n; j++) {
+      const u = U[ri + j], rj = j * n;
+      if (u === 0) continue;
+      for (let c = 0; c < n; c++) { Vr[ri + c] += u * yr[rj + c]; Vi[ri + c] += u * yi[rj + c]; }
+    }
+  }
+  return { n, valuesRe, valuesIm, vectors: { n, re: Vr, im: Vi } };
+}
+
+/**
+ * dlaed2's deflation: w_j with |rho w_j| <= tol is dropped (d_j, u_j is then an eigenpair), and of two
+ * active d_i <= d_j with |c s (d_j - d_i)| <= tol after the rotation that moves w_i into w_j, w_i is
+ * dropped (the rotation is applied to U's columns and to d). Returns the active indices in ascending d.
+ */
+function deflate(d: Float64Array, w: Float64Array, U: Float64Array, n: number, rho: number, tol: number): number[] {
+  const order: number[] = [];
+  for (let j = 0; j < n; j++) {
+    if (rho * Math.abs(w[j]) <= tol) { w[j] = 0; continue; }
+    let p = order.length;
+    order.push(j);
+    while (p > 0 && d[order[p - 1]] > d[j]) { order[p] = order[p - 1]; p--; }
+    order[p] = j;
+  }
+  const active: number[] = [];
+  for (const j of order) {
+    const i = active.length ? active[active.length - 1] : -1;
+    if (i >= 0) {
+      const r = cabs(w[i], w[j]), c = w[j] / r, s = w[i] / r;
+      if (Math.abs(c * s * (d[j] - d[i])) <= tol) {
+        // new u_i = c u_i - s u_j (w_i -> 0), new u_j = s u_i + c u_j (w_j -> r)
+        for (let k = 0; k < n; k++) {
+          const a = U[k * n + i], b = U[k * n + j];
+          U[k * n + i] = c * a - s * b;
+          U[k * n + j] = s * a + c * b;
+        }
+        const di = d[i], dj = d[j];
+        d[i] = c * c * di + s * s * dj;
+        d[j] = s * s * di + c * c * dj;
+        w[i] = 0; w[j] = r;
+        active[active.length - 1] = j;
+        continue;
+      }
+    }
+    active.push(j);
+  }
+  return active;
+}
+
+/** Newton's method for root a: g(tau) = -tau + rho w_k^2 - rho tau sum_j w_j^2 / (delta_j - tau), delta_j = d_j - d_k. */
+function newtonRoot(d: Float64Array, w: Float64Array, active: number[], a: number, rhoRe: number, rhoIm: number, tr: Float64Array, ti: Float64Array): void {
+  const k = active[a], m = active.length;
+  const w2 = w[k] * w[k];
+  // second-order start
+  let s0 = 0;
+  for (let c = 0; c < m; c++) if (c !== a) { const j = active[c]; s0 += (w[j] * w[j]) / (d[j] - d[k]); }
+  const nr = rhoRe * w2, ni = rhoIm * w2, er = 1 + rhoRe * s0, ei = rhoIm * s0;
+  const den0 = er * er + ei * ei;
+  let xr = (nr * er + ni * ei) / den0, xi = (ni * er - nr * ei) / den0;
+  const size = cabs(nr, ni);
+  let last = Infinity;
+  for (let it = 0; ; it++) {
+    if (it === MAX_NEWTON) throw new NumericalError(`rank-one eigen-solver: root ${k + 1} did not converge in ${MAX_NEWTON} Newton steps`, 'no-convergence');
+    // S = sum w_j^2 / (delta_j - tau), P = sum w_j^2 delta_j / (delta_j - tau)^2
+    let sr = 0, si = 0, pr = 0, pi = 0;
+    for (let c = 0; c < m; c++) {
+      if (c === a) continue;
+      const j = active[c], delta = d[j] - d[k], q = w[j] * w[j];
+      const ar = delta - xr, ai = -xi, den = ar * ar + ai * ai;
+      const ir = ar / den, ii = -ai / den;
+      const fr = q * ir, fi = q * ii;
+      sr += fr; si += fi;
+      // q delta inv^2
+      pr += delta * (fr * ir - fi * ii); pi += delta * (fr * ii + fi * ir);
+    }
+    // g = -tau + rho w_k^2 - rho tau S ; g' = -1 - rho P
+    const tsr = xr * sr - xi * si, tsi = xr * si + xi * sr;
+    const gr = -xr + nr - (rhoRe * tsr - rhoIm * tsi), gi = -xi + ni - (rhoRe * tsi + rhoIm * tsr);
+    const hr = -1 - (rhoRe * pr - rhoIm * pi), hi = -(rhoRe * pi + rhoIm * pr);
+    const hd = hr * hr + hi * hi;
+    const dr = (gr * hr + gi * hi) / hd, di = (gi * hr - gr * hi) / hd;
+    xr -= dr; xi -= di;
+    // converged to rounding, or stalled there (the step no longer shrinks once it is at the noise of g)
+    const step = cabs(dr, di), ref = cabs(xr, xi) + size;
+    if (step <= 8 * EPS * ref || (step <= 1e-10 * ref && step >= 0.5 * last)) break;
+    last = step;
+  }
+  tr[k] = xr; ti[k] = xi;
+}
+
+/** Distinct roots that add up to the trace: sum tau_k = rho sum w_k^2 (the trace of rho w w^T). */
+function checkRoots(d: Float64Array, w: Float64Array, active: number[], tr: Float64Array, ti: Float64Array, rhoRe: number, rhoIm: number, scale: number): void {
+  const m = active.length;
+  let sumR = 0, sumI = 0, w2 = 0;
+  for (let a = 0; a < m; a++) {
+    const k = active[a];
+    sumR += tr[k]; sumI += ti[k]; w2 += w[k] * w[k];
+    for (let c = 0; c < a; c++) {
+      const j = active[c];
+      const gap = cabs(d[k] - d[j] + tr[k] - tr[j], ti[k] - ti[j]);
+      if (!(gap > 1e-7 * scale)) throw new NumericalError(`rank-one eigen-solver: roots ${j + 1} and ${k + 1} meet (gap ${gap.toExponential(2)}): Newton found one root twice or the matrix is near an exceptional point`, 'no-convergence');
+    }
+  }
+  const miss = cabs(sumR - rhoRe * w2, sumI - rhoIm * w2);
+  if (!(miss <= 1e-11 * scale)) throw new NumericalError(`rank-one eigen-solver: the roots miss the trace by ${miss.toExponential(2)}`, 'no-convergence');
+}
