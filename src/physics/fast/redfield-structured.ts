@@ -4,7 +4,7 @@ import { luFactor, luSolveInPlace, type LuFactors } from '../linalg/lu.js';
 import { toExcitonBasis } from '../models/redfield.js';
 import { notApplicable, unavailable } from './structured-errors.js';
 import { redfieldRates } from './redfield-rates.js';
-import { applyInverse, applyInverseSparseReal, secularBlocks, type SecularBlocks } from './secular-blocks.js';
+import { applyInverse, secularBlocks, type SecularBlocks } from './secular-blocks.js';
 
 /** Sites whose sink rate differs from the common one that the structured redfield solver accepts. */
 export const MAX_SPECIAL_SITES = 4;
@@ -27,21 +27,18 @@ export interface RedfieldProblem {
 /**
  * Efficiency, loss and transfer time of the secular Redfield model in O(N^3) when the sink rate (loss +
  * trap) is the same on all but a few sites. In the exciton basis the generator is
- *   L(X) = D(X) - 1/2 sum_s delta_s (P_s X + X P_s),   P_s = c_s c_s^T,
- * D the block-diagonal secular part with the common sink kappa (secular-blocks.ts), c_s the (real) exciton
- * amplitudes of special site s and delta_s its extra sink. The right-hand sides and so the solutions are
- * Hermitian (L and D map Hermitian matrices to Hermitian ones), and for a Hermitian X
- *   P_s X + X P_s = c_s z_s^H + z_s c_s^T,   z_s = X c_s,
- * so the second term is fixed by one complex N-vector, 2N reals, per special site. Writing
- * M_s(z) = c_s z^H + z c_s^T (real-linear in z), the Sherman-Morrison-Woodbury identity (Hager, SIAM Rev. 31,
- * 221 (1989)) restricted to Hermitian matrices reads
- *   X = X0 + D^-1 sum_s (delta_s / 2) M_s(z_s),   X0 = D^-1 B,   (I + K) z = (X0 c_t)_t,
- * K the real 2Nr x 2Nr capacitance map z -> ([D^-1 sum_s -(delta_s / 2) M_s(z_s)] c_t)_t. (I + K) is
- * singular exactly when L is on Hermitian matrices. Since D^-1(X^H) = D^-1(X)^H, the columns of K for
- * z = e_b and z = i e_b both follow from P = D^-1(c_s e_b^T) (one column of a matrix: D^-1 touches only the
- * blocks of those N elements): they are the readouts of P + P^H and i (P^H - P). Building K is O(N^2 r^2)
- * after the O(N^3) inversion of the population block, its real LU O((2Nr)^3), each solve O(N^2 r), and the
- * residual of L(X) = B is checked exactly in O(N^2 r) plus the couplings.
+ *   L(X) = D(X) + S(X),   S(X) = C^T S'(C X C^T) C,   S'(rho)_ij = -1/2 (delta_i + delta_j) rho_ij,
+ * D the block-diagonal secular part with the common sink kappa (secular-blocks.ts), C the exciton coefficients
+ * and delta_m = sink_m - kappa, non-zero only at the r special sites. The right-hand sides and so the solutions
+ * are Hermitian (L and D map Hermitian matrices to Hermitian ones), and S' touches only the entries rho_ms with m
+ * or s special: 2Nr - r^2 real parameters of a Hermitian matrix. So S = U V^T on the real space of Hermitian
+ * matrices, V^T reading those parameters of C X C^T and U putting them back times -1/2 (delta_m + delta_s), and
+ * the Sherman-Morrison-Woodbury identity (Hager, SIAM Rev. 31, 221 (1989))
+ *   L^-1 = D^-1 - D^-1 U (I + V^T D^-1 U)^-1 V^T D^-1
+ * needs a real (2Nr - r^2) x (2Nr - r^2) capacitance matrix (I + V^T D^-1 U is singular exactly when L is on
+ * Hermitian matrices). Since D^-1(X^H) = D^-1(X)^H, both columns of an off-diagonal entry follow from one
+ * D^-1(c_m c_s^T) (capacitance below). Building it is O(N^3 r^2), its real LU O((2Nr)^3), each solve
+ * O(N^2 r + N^3), and the residual of L(X) = B is checked exactly in O(N^2 r) plus the couplings.
  * Not applicable (NumericalError, code STRUCTURED_NOT_APPLICABLE) when more than MAX_SPECIAL_SITES sites differ
  * (per-site lifetimes make the correction full rank) or when there is no common sink (kappa = 0: the
  * population block of D conserves population and is singular). Scratch arrays are reused between calls (one
@@ -61,14 +58,11 @@ export function structuredRedfield(p: RedfieldProblem): { efficiency: number; lo
   if (!(kappa > 0)) notApplicable('there is no loss common to the sites (kappa = 0), which the structured redfield solver needs');
   const rates = redfieldRates(ex, p.reorganization, p.temperature, p.cutoff, p.secularFraction);
   const D = secularBlocks(rates, kappa);
-  const half = scratch.f64('half', r);
-  for (let t = 0; t < r; t++) half[t] = -0.5 * (sink[special[t]] - kappa);
-  const g: Correction = { D, C, n, r, special, half, lu: undefined };
+  const g = correction(D, C, n, r, special, sink, kappa);
   if (r > 0) {
-    const q = 2 * n * r;
     const cap = capacitance(g);
     try {
-      g.lu = luFactor(cap, q, false, scratch.i32('pivots', q));
+      g.lu = luFactor(cap, g.p, false, scratch.i32('pivots', g.p));
     } catch {
       unavailable('the Woodbury capacitance matrix of the trap term is singular');
     }
@@ -93,93 +87,136 @@ export function structuredRedfield(p: RedfieldProblem): { efficiency: number; lo
 
 const scratch = new Scratch();
 
-/** The secular part and the low-rank sink correction of one problem. */
+/**
+ * The secular part and the low-rank sink correction of one problem. The unknowns of the correction are the
+ * site-basis entries rho_ms (rho = C X C^T) with s special, each Hermitian pair once: for the t-th special site
+ * s and every site m not an earlier special one, Re rho_ms and Im rho_ms, only Re rho_ss on the diagonal:
+ * 2Nr - r^2 reals. Parameter k sits at entry (site[k], special[tIndex[k]]), kind[k] 0 (diagonal), 1 (real
+ * part) or 2 (imaginary part, always right after its real part).
+ */
 interface Correction {
   readonly D: SecularBlocks;
   readonly C: Float64Array;
   readonly n: number;
-  /** Number of special sites, their indices (first r entries) and -delta_s / 2. */
   readonly r: number;
   readonly special: Int32Array;
-  readonly half: Float64Array;
-  /** Real LU of the 2Nr x 2Nr capacitance matrix (none when r = 0). */
+  readonly p: number;
+  readonly site: Int32Array;
+  readonly tIndex: Int32Array;
+  readonly kind: Int32Array;
+  /** -1/2 (delta_m + delta_s) of each parameter's entry, delta = sink - kappa. */
+  readonly gain: Float64Array;
+  /** Real LU of the p x p capacitance matrix (none when r = 0). */
   lu: LuFactors | undefined;
 }
 
+function correction(D: SecularBlocks, C: Float64Array, n: number, r: number, special: Int32Array, sink: Float64Array, kappa: number): Correction {
+  const rank = scratch.i32('rank', n);
+  rank.fill(-1, 0, n);
+  for (let t = 0; t < r; t++) rank[special[t]] = t;
+  const p = 2 * n * r - r * r;
+  const site = scratch.i32('site', p), tIndex = scratch.i32('tIndex', p), kind = scratch.i32('kind', p), gain = scratch.f64('gain', p);
+  let k = 0;
+  for (let t = 0; t < r; t++) {
+    const s = special[t];
+    for (let m = 0; m < n; m++) {
+      if (rank[m] >= 0 && rank[m] < t) continue;
+      const g = -0.5 * (sink[m] - kappa + (sink[s] - kappa));
+      for (let part = m === s ? 0 : 1; part <= (m === s ? 0 : 2); part++) { site[k] = m; tIndex[k] = t; kind[k] = part; gain[k] = g; k++; }
+    }
+  }
+  return { D, C, n, r, special, p, site, tIndex, kind, gain, lu: undefined };
+}
+
 /**
- * The capacitance matrix I + K (row-major, 2Nr x 2Nr, in scratch). Unknown z_t sits at 2Nt (real parts) and
- * 2Nt + N (imaginary parts). For P = D^-1(-(delta_s / 2) c_s e_b^T) each entry P_ij = pr + i pi adds
- * pr c_j + i pi c_j to (P c_t)_i and pr c_i - i pi c_i to (P^H c_t)_j; column z_s = e_b takes their sum,
- * column z_s = i e_b i times their difference (P^H - P).
+ * The capacitance matrix I + V^T D^-1 U (row-major p x p, in scratch), V^T reading the parameters of a Hermitian
+ * X and U w = C^T (sum_k w_k gain_k B_k) C, B_k the Hermitian unit matrix of parameter k (E_ms + E_sm,
+ * i (E_ms - E_sm) or E_ss). With P = D^-1(c_m c_s^T) (c_m c_s^T = C^T E_ms C, real and dense) the columns are
+ * gain (P + P^H), gain i (P - P^H) and gain P = gain (P + P^H) / 2 (P Hermitian when m = s); reading them needs
+ * column and row s' of Q = C P C^T for every special s': a = Q_m's', b = Q_s'm'.
  */
 function capacitance(g: Correction): Float64Array {
-  const { D, C, n, r, special, half } = g;
-  const len = n * n, q = 2 * n * r;
-  const A = scratch.zeros('cap', q * q);
-  let widest = 1;
-  for (let k = 0; k < D.blocks; k++) widest = Math.max(widest, D.start[k + 1] - D.start[k]);
-  const el = scratch.i32('el', n), v = scratch.f64('v', n), touched = scratch.i32('touched', n * widest);
-  const pr = scratch.zeros('pr', len), pi = scratch.zeros('pi', len);
-  const seen = scratch.i32('seen', len);
-  seen.fill(0, 0, len);
-  for (let s = 0; s < r; s++) {
-    const cs = special[s] * n, h = half[s];
-    for (let b = 0; b < n; b++) {
-      for (let a = 0; a < n; a++) { el[a] = a * n + b; v[a] = h * C[cs + a]; }
-      const count = applyInverseSparseReal(D, el, v, n, pr, pi, touched, 0);
-      const colRe = 2 * n * s + b, colIm = colRe + n;
-      for (let k = 0; k < count; k++) {
-        const f = touched[k];
-        if (seen[f]) continue;
-        seen[f] = 1;
-        const i = (f / n) | 0, j = f - i * n, xr = pr[f], xi = pi[f];
-        for (let t = 0; t < r; t++) {
-          const ct = special[t] * n, ci = C[ct + i], cj = C[ct + j];
-          const ri = (2 * n * t + i) * q, ii = ri + n * q, rj = (2 * n * t + j) * q, ij = rj + n * q;
-          const a1 = xr * cj, b1 = xi * cj, c1 = xr * ci, d1 = xi * ci;
-          A[ri + colRe] += a1; A[ii + colRe] += b1; A[rj + colRe] += c1; A[ij + colRe] -= d1;
-          A[ri + colIm] += b1; A[ii + colIm] -= a1; A[rj + colIm] += d1; A[ij + colIm] += c1;
+  const { D, C, n, r, special, p, site, tIndex, kind, gain } = g;
+  const len = n * n;
+  const A = scratch.zeros('cap', p * p);
+  const Mr = scratch.f64('Mr', len), Mi = scratch.zeros('Mi', len), Pr = scratch.f64('Pr', len), Pi = scratch.f64('Pi', len);
+  const u = scratch.f64('cu', 2 * n), v = scratch.f64('cv', 2 * n);
+  const colR = scratch.f64('colR', r * n), colI = scratch.f64('colI', r * n), rowR = scratch.f64('rowR', r * n), rowI = scratch.f64('rowI', r * n);
+  for (let k = 0; k < p; k++) {
+    if (kind[k] === 2) continue;
+    const m = site[k], s = special[tIndex[k]];
+    for (let a = 0; a < n; a++) { const cm = C[m * n + a]; for (let b = 0; b < n; b++) Mr[a * n + b] = cm * C[s * n + b]; }
+    applyInverse(D, Mr, Mi, Pr, Pi);
+    for (let t = 0; t < r; t++) {
+      // u = P c_s', v = P^T c_s', then column s' of Q = C u and row s' = C v
+      const cs = special[t] * n;
+      v.fill(0, 0, 2 * n);
+      for (let a = 0; a < n; a++) {
+        const ra = a * n, ca = C[cs + a];
+        let sr = 0, si = 0;
+        for (let b = 0; b < n; b++) {
+          const xr = Pr[ra + b], xi = Pi[ra + b];
+          sr += xr * C[cs + b]; si += xi * C[cs + b];
+          v[b] += xr * ca; v[n + b] += xi * ca;
         }
+        u[a] = sr; u[n + a] = si;
       }
-      for (let k = 0; k < count; k++) { const f = touched[k]; seen[f] = 0; pr[f] = 0; pi[f] = 0; }
-      A[colRe * q + colRe] += 1;
-      A[colIm * q + colIm] += 1;
+      for (let q = 0; q < n; q++) {
+        const cq = q * n;
+        let ar = 0, ai = 0, br = 0, bi = 0;
+        for (let a = 0; a < n; a++) { const c = C[cq + a]; ar += c * u[a]; ai += c * u[n + a]; br += c * v[a]; bi += c * v[n + a]; }
+        colR[t * n + q] = ar; colI[t * n + q] = ai; rowR[t * n + q] = br; rowI[t * n + q] = bi;
+      }
     }
+    const diagonal = kind[k] === 0, h = diagonal ? 0.5 * gain[k] : gain[k];
+    for (let k2 = 0; k2 < p; k2++) {
+      const o = tIndex[k2] * n + site[k2], ar = colR[o], ai = colI[o], br = rowR[o], bi = rowI[o], row = k2 * p;
+      const imaginary = kind[k2] === 2;
+      // parameter k2 of P + P^H: (a + conj b) at (m', s'); of i (P - P^H): i (a - conj b)
+      A[row + k] += h * (imaginary ? ai - bi : ar + br);
+      if (!diagonal) A[row + k + 1] += h * (imaginary ? ar - br : -(ai + bi));
+    }
+    A[k * p + k] += 1;
+    if (!diagonal) A[(k + 1) * p + k + 1] += 1;
   }
   return A;
 }
 
-/** z_t = X c_t for every special t, into u (real parts at 2Nt, imaginary at 2Nt + N). */
-function readout(g: Correction, xr: Float64Array, xi: Float64Array, u: Float64Array): void {
-  const { C, n, r, special } = g;
+/** The parameters of a Hermitian X: rho_ms = (C X c_s)_m for every special s, into w. */
+function readout(g: Correction, xr: Float64Array, xi: Float64Array, w: Float64Array): void {
+  const { C, n, r, special, p, site, tIndex, kind } = g;
+  const colR = scratch.f64('colR', r * n), colI = scratch.f64('colI', r * n), u = scratch.f64('cu', 2 * n);
   for (let t = 0; t < r; t++) {
-    const ct = special[t] * n, o = 2 * n * t;
-    for (let i = 0; i < n; i++) {
-      const ri = i * n;
+    const cs = special[t] * n;
+    for (let a = 0; a < n; a++) {
+      const ra = a * n;
       let sr = 0, si = 0;
-      for (let j = 0; j < n; j++) { sr += xr[ri + j] * C[ct + j]; si += xi[ri + j] * C[ct + j]; }
-      u[o + i] = sr;
-      u[o + n + i] = si;
+      for (let b = 0; b < n; b++) { sr += xr[ra + b] * C[cs + b]; si += xi[ra + b] * C[cs + b]; }
+      u[a] = sr; u[n + a] = si;
+    }
+    for (let q = 0; q < n; q++) {
+      let ar = 0, ai = 0;
+      for (let a = 0; a < n; a++) { const c = C[q * n + a]; ar += c * u[a]; ai += c * u[n + a]; }
+      colR[t * n + q] = ar; colI[t * n + q] = ai;
     }
   }
+  for (let k = 0; k < p; k++) { const o = tIndex[k] * n + site[k]; w[k] = kind[k] === 2 ? colI[o] : colR[o]; }
 }
 
-/** sum_s -(delta_s / 2) M_s(z_s) = sum_s -(delta_s / 2) (c_s z_s^H + z_s c_s^T), into (xr, xi). */
-function expand(g: Correction, u: Float64Array, xr: Float64Array, xi: Float64Array): void {
-  const { C, n, r, special, half } = g;
-  xr.fill(0, 0, n * n);
-  xi.fill(0, 0, n * n);
-  for (let t = 0; t < r; t++) {
-    const ct = special[t] * n, o = 2 * n * t, h = half[t];
-    for (let i = 0; i < n; i++) {
-      const ri = i * n, hc = h * C[ct + i], hzr = h * u[o + i], hzi = h * u[o + n + i];
-      for (let j = 0; j < n; j++) {
-        const cj = C[ct + j];
-        xr[ri + j] += hc * u[o + j] + hzr * cj;
-        xi[ri + j] += hzi * cj - hc * u[o + n + j];
-      }
-    }
+/** U w = C^T (sum_k w_k gain_k B_k) C, into (xr, xi). */
+function expand(g: Correction, w: Float64Array, xr: Float64Array, xi: Float64Array): void {
+  const { C, n, special, p, site, tIndex, kind, gain } = g;
+  const len = n * n;
+  const Gr = scratch.zeros('Gr', len), Gi = scratch.zeros('Gi', len);
+  for (let k = 0; k < p; k++) {
+    const m = site[k], s = special[tIndex[k]], v = gain[k] * w[k];
+    if (kind[k] === 0) Gr[s * n + s] += v;
+    else if (kind[k] === 1) { Gr[m * n + s] += v; Gr[s * n + m] += v; }
+    else { Gi[m * n + s] += v; Gi[s * n + m] -= v; }
   }
+  const tmp = scratch.f64('expandTmp', len);
+  toExcitonBasis(n, Gr, C, xr, tmp);
+  toExcitonBasis(n, Gi, C, xi, tmp);
 }
 
 /** X = L^-1 B for a Hermitian B (split), into (xr, xi). */
@@ -187,11 +224,11 @@ function solve(g: Correction, br: Float64Array, bi: Float64Array, xr: Float64Arr
   const { D, n, lu } = g;
   applyInverse(D, br, bi, xr, xi);
   if (lu === undefined) return;
-  const len = n * n, u = scratch.f64('u', lu.n);
-  readout(g, xr, xi, u);
-  luSolveInPlace(lu, u);
+  const len = n * n, w = scratch.f64('w', g.p);
+  readout(g, xr, xi, w);
+  luSolveInPlace(lu, w);
   const tr = scratch.f64('tr', len), ti = scratch.f64('ti', len), ur = scratch.f64('ur', len), ui = scratch.f64('ui', len);
-  expand(g, u, tr, ti);
+  expand(g, w, tr, ti);
   applyInverse(D, tr, ti, ur, ui);
   for (let k = 0; k < len; k++) { xr[k] -= ur[k]; xi[k] -= ui[k]; }
 }

@@ -12,8 +12,7 @@ import type { RedfieldRates } from './redfield-rates.js';
  * the secular threshold (and populations to populations), so D is block diagonal over clusters of Bohr
  * frequencies: sorted by w_ab, consecutive elements closer than the threshold share a block, and all
  * populations share one. 1 x 1 blocks keep their reciprocal, larger ones their explicit inverse (the
- * population block is N x N), so that D^-1 of a matrix with a few non-zero entries costs only the blocks
- * those entries touch. D maps Hermitian matrices to Hermitian ones (R_abcd = R_badc, w_ab = -w_ba), so
+ * population block is N x N), so that D^-1 of a matrix costs O(N^2) plus the squares of the larger blocks. D maps Hermitian matrices to Hermitian ones (R_abcd = R_badc, w_ab = -w_ba), so
  * D^-1(X^H) = D^-1(X)^H.
  * The arrays live in module-level scratch (one set per thread): a result is valid until the next call.
  */
@@ -24,9 +23,6 @@ export interface SecularBlocks {
   /** Elements (a * n + b) grouped by block: block k is members[start[k]..start[k+1]). */
   readonly members: Int32Array;
   readonly start: Int32Array;
-  /** Block of each element and its position in the block. */
-  readonly blockOf: Int32Array;
-  readonly position: Int32Array;
   /** Reciprocal of the diagonal of D for elements in 1 x 1 blocks (re, im). */
   readonly invRe: Float64Array;
   readonly invIm: Float64Array;
@@ -67,7 +63,7 @@ export function secularBlocks(rates: RedfieldRates, kappa: number): SecularBlock
     if (!(w[q] - w[p] < secular || (pop[p] === 1 && pop[q] === 1))) start[++blocks] = t;
   }
   start[++blocks] = len;
-  const blockOf = scratch.i32('blockOf', len), position = scratch.i32('position', len), invAt = scratch.i32('invAt', blocks);
+  const invAt = scratch.i32('invAt', blocks);
   let packed = 0;
   for (let k = 0; k < blocks; k++) {
     const s = start[k + 1] - start[k];
@@ -82,7 +78,6 @@ export function secularBlocks(rates: RedfieldRates, kappa: number): SecularBlock
   let count = 0;
   for (let k = 0; k < blocks; k++) {
     const lo = start[k], s = start[k + 1] - lo;
-    for (let i = 0; i < s; i++) { blockOf[members[lo + i]] = k; position[members[lo + i]] = i; }
     if (s === 1) {
       const e = members[lo], a = (e / n) | 0, b = e % n;
       const dr = rates.element(a, b, a, b) - kappa, di = -w[e] * CM_TO_RAD_PER_PS;
@@ -117,7 +112,7 @@ export function secularBlocks(rates: RedfieldRates, kappa: number): SecularBlock
     }
     complexLuInverseInto(s, re, im, pivots, packRe.subarray(at, at + ss), packIm.subarray(at, at + ss));
   }
-  return { n, blocks, members, start, blockOf, position, invRe, invIm, packRe, packIm, invAt, diagRe, diagIm, couplings: { count, to, from, value } };
+  return { n, blocks, members, start, invRe, invIm, packRe, packIm, invAt, diagRe, diagIm, couplings: { count, to, from, value } };
 }
 
 /** Y = D^-1 X for a complex N x N matrix X (split re, im, row-major), into (yr, yi). */
@@ -144,32 +139,4 @@ export function applyInverse(D: SecularBlocks, xr: Float64Array, xi: Float64Arra
       yi[members[lo + i]] = si;
     }
   }
-}
-
-/**
- * D^-1 of a matrix whose non-zero entries are `count` real (element, value) pairs, accumulated into the dense
- * (yr, yi), which must be zero on entry; the elements written are appended to touched[touchedCount..] (duplicates
- * allowed) and the new count is returned. Costs the sizes of the blocks the entries fall in.
- */
-export function applyInverseSparseReal(D: SecularBlocks, el: Int32Array, v: Float64Array, count: number, yr: Float64Array, yi: Float64Array, touched: Int32Array, touchedCount: number): number {
-  const { members, start, blockOf, position, invRe, invIm, packRe, packIm, invAt } = D;
-  let c = touchedCount;
-  for (let t = 0; t < count; t++) {
-    const e = el[t], a = v[t];
-    const k = blockOf[e], lo = start[k], s = start[k + 1] - lo;
-    if (s === 1) {
-      yr[e] += a * invRe[e];
-      yi[e] += a * invIm[e];
-      touched[c++] = e;
-      continue;
-    }
-    const at = invAt[k] + position[e];
-    for (let i = 0; i < s; i++) {
-      const f = members[lo + i];
-      yr[f] += a * packRe[at + i * s];
-      yi[f] += a * packIm[at + i * s];
-      touched[c++] = f;
-    }
-  }
-  return c;
 }

@@ -114,7 +114,7 @@ function tensorTerm(R: RedfieldTensor): Term {
 }
 
 /** C^T A C for a row-major N x N A and exciton coefficients C; `out` and `tmp` (n * n entries) may be given to be reused. */
-export function toExcitonBasis(n: number, A: Float64Array, C: Float64Array, out = new Float64Array(n * n), tmp = new Float64Array(n * n)): Float64Array {
+export function toExcitonBasis(n: number, A: Float64Array, C: Float64Array, out: Float64Array = new Float64Array(n * n), tmp: Float64Array = new Float64Array(n * n)): Float64Array {
   tmp.fill(0, 0, n * n);
   out.fill(0, 0, n * n);
   for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) {

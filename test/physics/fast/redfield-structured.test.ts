@@ -69,3 +69,26 @@ describe('structured redfield falls back where it does not apply', () => {
     try { evaluateTransport(sys, { model: 'redfield', trapRate: 1, solver: 'structured' }); } catch (e) { expect((e as NumericalError).code).toBe(STRUCTURED_NOT_APPLICABLE); }
   });
 });
+
+describe('structured redfield reuses its scratch arrays between calls', () => {
+  it('gives bit-identical results for an array solved again after a larger and a smaller one', () => {
+    const r = rng(704);
+    const systems = [6, 11, 3].map((n) => systemFromHamiltonian(randomHamiltonian(r, n, 400, 100), { traps: [n - 1, 0], lossRate: Array.from({ length: n }, (_, m) => (m === 1 ? 0.003 : 0.001)), reorganization: 35 }));
+    const o = { model: 'redfield', solver: 'structured', temperature: 295, cutoff: 106, trapRate: 1 } as const;
+    const first = evaluateTransport(systems[0], o);
+    evaluateTransport(systems[1], o);
+    evaluateTransport(systems[2], o);
+    const again = evaluateTransport(systems[0], o);
+    expect(again).toEqual(first);
+  });
+  it('solves a problem without special sites (uniform sink, no trap rate): no correction, eta = 0, loss = 1 as the dense solve', () => {
+    const r = rng(705);
+    const sys = systemFromHamiltonian(randomHamiltonian(r, 5, 300, 80), { traps: [4], lossRate: 0.002, reorganization: 35 });
+    const o = { model: 'redfield', temperature: 300, cutoff: 100, trapRate: 0, start: { kind: 'site', site: 0 } } as const;
+    const s = evaluateTransport(sys, { ...o, solver: 'structured' }), d = evaluateTransport(sys, { ...o, solver: 'dense' });
+    expect(s.efficiency).toBe(0);
+    expect(s.transferTime).toBe(Infinity);
+    expect(Math.abs(s.lossFraction - 1)).toBeLessThan(1e-12);
+    expect(Math.abs(s.lossFraction - d.lossFraction)).toBeLessThan(1e-9);
+  });
+});
