@@ -56,6 +56,11 @@ export interface DipoleSpec {
   readonly length?: number;
 }
 
+/** |b - a|, as separation computes it. */
+function distance(a: Vec3, b: Vec3): number {
+  return Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
+}
+
 function separation(a: Vec3, b: Vec3): { r: Vec3; R: number } {
   const d: Vec3 = [b[0] - a[0], b[1] - a[1], b[2] - a[2]];
   const R = Math.hypot(d[0], d[1], d[2]);
@@ -79,23 +84,16 @@ export function extendedDipoleCoupling(m: DipoleSpec, n: DipoleSpec, screening: 
   if (!(lm !== undefined && lm > 0 && ln !== undefined && ln > 0)) {
     throw new InputError('the extended-dipole coupling needs a positive dye length for both dyes');
   }
-  const { R } = separation(m.position, n.position);
+  const R = distance(m.position, n.position);
   if (!(R > 0)) throw new InputError('two dyes sit at the same position; the coupling is undefined');
   const qm = m.dipole / lm, qn = n.dipole / ln; // D/nm
+  const a = m.position, u = m.direction, b = n.position, v = n.direction;
   let sum = 0;
-  for (const sm of [1, -1]) {
-    const pm: Vec3 = [
-      m.position[0] + (sm * lm * m.direction[0]) / 2,
-      m.position[1] + (sm * lm * m.direction[1]) / 2,
-      m.position[2] + (sm * lm * m.direction[2]) / 2,
-    ];
-    for (const sn of [1, -1]) {
-      const pn: Vec3 = [
-        n.position[0] + (sn * ln * n.direction[0]) / 2,
-        n.position[1] + (sn * ln * n.direction[1]) / 2,
-        n.position[2] + (sn * ln * n.direction[2]) / 2,
-      ];
-      const d = Math.hypot(pn[0] - pm[0], pn[1] - pm[1], pn[2] - pm[2]);
+  for (let sm = 1; sm >= -1; sm -= 2) {
+    const p0 = a[0] + (sm * lm * u[0]) / 2, p1 = a[1] + (sm * lm * u[1]) / 2, p2 = a[2] + (sm * lm * u[2]) / 2;
+    for (let sn = 1; sn >= -1; sn -= 2) {
+      const q0 = b[0] + (sn * ln * v[0]) / 2, q1 = b[1] + (sn * ln * v[1]) / 2, q2 = b[2] + (sn * ln * v[2]) / 2;
+      const d = Math.hypot(q0 - p0, q1 - p1, q2 - p2);
       if (!(d > 0)) throw new InputError('two extended-dipole charges coincide; the dyes overlap');
       sum += (sm * sn) / d;
     }
@@ -111,7 +109,7 @@ export function coupling(m: DipoleSpec, n: DipoleSpec, method: 'point-dipole' | 
   if (method === 'point-dipole') return pointDipoleCoupling(m, n, screening);
   if (method === 'extended-dipole') return extendedDipoleCoupling(m, n, screening);
   const lm = m.length ?? 0, ln = n.length ?? 0;
-  const { R } = separation(m.position, n.position);
+  const R = distance(m.position, n.position);
   if (lm > 0 && ln > 0 && R < 2 * Math.max(lm, ln)) return extendedDipoleCoupling(m, n, screening);
   return pointDipoleCoupling(m, n, screening);
 }

@@ -65,7 +65,9 @@ export function buildSystem(sites: readonly Site[], options?: Partial<SystemOpti
     if (s.length !== undefined) requireNumber(`${name} length`, s.length, 'positive');
     return { position: s.position, direction: unit(s.direction, `${name} direction`), dipole: s.dipole, length: s.length };
   });
-  const H = new Float64Array(n * n);
+  // one backing store for the Hamiltonian and the dipoles (typed arrays of more than 64 bytes are allocated off the heap)
+  const store = new Float64Array(n * n + 3 * n);
+  const H = store.subarray(0, n * n), dipoles = store.subarray(n * n);
   for (let i = 0; i < n; i++) {
     H[i * n + i] = sites[i].energy;
     for (let j = i + 1; j < n; j++) {
@@ -87,16 +89,14 @@ export function buildSystem(sites: readonly Site[], options?: Partial<SystemOpti
     H[i * n + j] = J;
     H[j * n + i] = J;
   }
-  const dipoles = new Float64Array(n * 3);
-  specs.forEach((s, i) => { for (let k = 0; k < 3; k++) dipoles[i * 3 + k] = s.dipole * s.direction[k]; });
-  return {
-    n,
-    hamiltonian: H,
-    traps: [...o.traps],
-    reorganization: Float64Array.from(sites, (s) => s.reorganization ?? o.defaultReorganization),
-    lossRates: Float64Array.from(sites, (s) => (s.lifetime !== undefined ? 1 / s.lifetime : o.defaultLossRate)),
-    dipoles,
-  };
+  const reorganization = new Float64Array(n), lossRates = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const s = specs[i], site = sites[i];
+    for (let k = 0; k < 3; k++) dipoles[i * 3 + k] = s.dipole * s.direction[k];
+    reorganization[i] = site.reorganization ?? o.defaultReorganization;
+    lossRates[i] = site.lifetime !== undefined ? 1 / site.lifetime : o.defaultLossRate;
+  }
+  return { n, hamiltonian: H, traps: [...o.traps], reorganization, lossRates, dipoles };
 }
 
 /**

@@ -1,9 +1,13 @@
 import { requireNumber } from '../../options.js';
 import type { Excitons } from '../excitons.js';
+import { Workspace } from '../linalg/workspace.js';
 import { checkExcitationCanLeave, initialDensity, trapRates } from '../models/common.js';
 import type { RedfieldOptions } from '../models/redfield.js';
 import type { ExcitonSystem } from '../types.js';
 import { structuredRedfield } from './redfield-structured.js';
+
+/** The initial state and sink rates of the last call (each worker thread has its own module instance). */
+const ws = new Workspace();
 
 /**
  * The structured redfield solve of a system, with the input checks of the dense redfield model
@@ -16,8 +20,8 @@ export function evaluateRedfieldStructured(sys: ExcitonSystem, o: RedfieldOption
   const cutoff = requireNumber('bath cutoff', o.cutoff, 'positive');
   const secularFraction = requireNumber('secular fraction', o.secularFraction, 'nonnegative');
   const kTrap = trapRates(sys, o.trapRate);
-  const rho0 = initialDensity(sys, o.start, ex);
-  const sink = Float64Array.from(sys.lossRates, (k, m) => k + kTrap[m]);
-  checkExcitationCanLeave(n, (i, j) => sys.hamiltonian[i * n + j] !== 0, rho0, sink);
+  const rho0 = initialDensity(sys, o.start, ex, ws.take('rho0', n * n)), sink = ws.take('sink', n), H = sys.hamiltonian;
+  for (let m = 0; m < n; m++) sink[m] = sys.lossRates[m] + kTrap[m];
+  checkExcitationCanLeave(n, (i, j) => H[i * n + j] !== 0, rho0, sink);
   return structuredRedfield({ ex: ex(), reorganization: sys.reorganization, trapRates: kTrap, lossRates: sys.lossRates, temperature, cutoff, secularFraction, rho0 });
 }
