@@ -40,15 +40,31 @@ export function luFactor(a: Float64Array, n: number, copy = true, pivots = new I
     }
     const rk = k * n;
     const inv = 1 / lu[rk + k];
-    for (let i = k + 1; i < n; i++) {
-      const ri = i * n;
-      const f = lu[ri + k] * inv;
-      if (f === 0) continue;
-      lu[ri + k] = f;
-      for (let j = k + 1; j < n; j++) lu[ri + j] -= f * lu[rk + j];
+    // rows two at a time (each pivot-row entry loaded once for both); every entry sees the same operations
+    let i = k + 1;
+    for (; i + 1 < n; i += 2) {
+      const ri = i * n, rj = ri + n;
+      const f = lu[ri + k] * inv, g = lu[rj + k] * inv;
+      if (f !== 0 && g !== 0) {
+        lu[ri + k] = f;
+        lu[rj + k] = g;
+        for (let j = k + 1; j < n; j++) { const u = lu[rk + j]; lu[ri + j] -= f * u; lu[rj + j] -= g * u; }
+      } else if (f !== 0) eliminate(lu, n, k, ri, f);
+      else if (g !== 0) eliminate(lu, n, k, rj, g);
+    }
+    if (i < n) {
+      const f = lu[i * n + k] * inv;
+      if (f !== 0) eliminate(lu, n, k, i * n, f);
     }
   }
   return { n, lu, pivots, pivotRatio: minPivot / scale };
+}
+
+/** Row ri -= f (row k) right of column k, with the multiplier f stored in column k. */
+function eliminate(lu: Float64Array, n: number, k: number, ri: number, f: number): void {
+  const rk = k * n;
+  lu[ri + k] = f;
+  for (let j = k + 1; j < n; j++) lu[ri + j] -= f * lu[rk + j];
 }
 
 /** Solve A x = b with the factors of A. b is not modified; returns x. */
