@@ -52,19 +52,17 @@ export function createAjv(): Ajv2020 {
   return ajv;
 }
 
-let validators: Map<ConfigKind, ValidateFunction> | undefined;
+let ajv: Ajv2020 | undefined;
+const validators = new Map<ConfigKind, ValidateFunction>();
 
-/** The compiled validator for one kind of file (compiled once per process). */
+/** The compiled validator for one kind of file (compiled once per process, and only for the kinds used). */
 export function validatorFor(kind: ConfigKind): ValidateFunction {
-  if (validators === undefined) {
-    const ajv = createAjv();
-    const compiled = new Map<ConfigKind, ValidateFunction>();
-    for (const k of Object.keys(TOP_SCHEMA) as ConfigKind[]) {
-      const validate = ajv.getSchema(TOP_SCHEMA[k]);
-      if (validate === undefined) throw new Error(`schema ${TOP_SCHEMA[k]} did not compile`);
-      compiled.set(k, validate);
-    }
-    validators = compiled;
+  let validate = validators.get(kind);
+  if (validate === undefined) {
+    ajv ??= createAjv();
+    validate = ajv.getSchema(TOP_SCHEMA[kind]);
+    if (validate === undefined) throw new Error(`schema ${TOP_SCHEMA[kind]} did not compile`);
+    validators.set(kind, validate);
   }
-  return validators.get(kind)!;
+  return validate;
 }

@@ -1,5 +1,4 @@
 import { Command } from 'commander';
-import { writeRunReport } from '../../actions/report.js';
 import type { CliContext } from '../context.js';
 import { outputPath } from '../paths.js';
 
@@ -15,6 +14,9 @@ export function reportCommand(ctx: CliContext): Command {
     .action(async (folder: string, f: { out?: string; svg?: string; force?: boolean; allowOutside?: boolean; json?: boolean }) => {
       const out = f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside));
       const svgFolder = f.svg === undefined ? undefined : outputPath('--svg', f.svg, Boolean(f.allowOutside));
+      // loaded here, not at start-up: the report carries the chart and 3-D viewer libraries, which every other
+      // command would otherwise load for nothing
+      const { writeRunReport } = await import('../../actions/report.js');
       const s = await writeRunReport({ runFolder: folder, out, svgFolder, force: Boolean(f.force) });
       for (const n of s.notes) ctx.stderr(`note: ${n}\n`);
       const svgs = s.svgFiles.length ? `svg     ${s.svgFiles.length} files in ${f.svg}\n` : '';
