@@ -1,4 +1,4 @@
-import { Worker } from 'node:worker_threads';
+import { MessageChannel, type MessagePort, receiveMessageOnPort, Worker } from 'node:worker_threads';
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import { makeEvaluatorParts, type EnsemblePart, type Evaluation, type NominalPart } from './evaluator.js';
@@ -8,9 +8,12 @@ type Parts = ReturnType<typeof makeEvaluatorParts>;
 /**
  * A batch as every thread receives it. `control` is shared: entry 0 counts the tasks taken, entry 1 + j is set
  * when point j's nominal evaluation failed. Task t < P is point t's nominal metrics, task P + j S + k is
- * sample k of point j's disorder ensemble (P points, S samples each).
+ * sample k of point j's disorder ensemble (P points, S samples each). `done` is the entry the worker sets (and
+ * notifies) once its reply is posted.
  */
-export interface BatchMessage { id: number; points: Record<string, unknown>[]; samples: number; control: SharedArrayBuffer }
+export interface BatchMessage { id: number; points: Record<string, unknown>[]; samples: number; control: SharedArrayBuffer; done: number }
+/** How long the main thread blocks for a worker's reply before it waits on the event loop instead, ms. */
+const BLOCK_MS = 200;
 /** What one thread computed: nominal parts by point, one-sample ensemble parts by j S + k. */
 export interface BatchReply { id: number; nominal: [number, NominalPart][]; samples: [number, EnsemblePart][] }
 
@@ -47,7 +50,7 @@ export function runTasks(parts: Parts, m: BatchMessage): BatchReply {
  * took which task.
  */
 export class EvaluationPool {
-  private readonly workers: Worker[];
+  private readonly workers: { worker: Worker; replies: MessagePort }[];
   private readonly parts: Parts;
   private next = 0;
   private readonly pending = new Map<number, (r: BatchReply) => void>();
@@ -57,36 +60,61 @@ export class EvaluationPool {
     this.parts = makeEvaluatorParts(constraints, objective);
     const url = new URL('./eval-worker.js', import.meta.url);
     this.workers = Array.from({ length: Math.max(0, size - 1) }, () => {
-      const w = new Worker(url, { workerData: { constraints, objective } });
-      w.on('message', (m: BatchReply) => {
-        const done = this.pending.get(m.id);
-        this.pending.delete(m.id);
-        done?.(m);
-      });
+      // replies come back on a port of their own, which the main thread can read without the event loop
+      const { port1, port2 } = new MessageChannel();
+      const w = new Worker(url, { workerData: { constraints, objective, replies: port2 }, transferList: [port2] });
+      port1.on('message', (m: BatchReply) => this.settle(m));
       w.on('error', (e) => {
         this.failure = e;
         for (const done of this.pending.values()) done({ id: -1, nominal: [], samples: [] });
         this.pending.clear();
       });
-      return w;
+      return { worker: w, replies: port1 };
     });
+  }
+
+  private settle(m: BatchReply): void {
+    const done = this.pending.get(m.id);
+    this.pending.delete(m.id);
+    done?.(m);
+  }
+
+  /**
+   * Worker i's reply to batch `id`: once the main thread has run out of tasks the worker is at most one task
+   * from done, so the main thread blocks on the shared flag (Atomics.wait) and reads the reply synchronously,
+   * instead of paying an event-loop round trip (0.4 to 1.3 ms measured here) on every batch. A worker that takes
+   * longer than BLOCK_MS (or has failed) is waited for on the event loop.
+   */
+  private async replyOf(i: number, id: number, ctl: Int32Array, done: number, waiting: Promise<BatchReply>): Promise<BatchReply> {
+    if (Atomics.wait(ctl, done, 0, BLOCK_MS) !== 'timed-out') {
+      const got = receiveMessageOnPort(this.workers[i].replies);
+      if (got) {
+        const m = got.message as BatchReply;
+        this.pending.delete(m.id);
+        if (m.id === id) return m;
+        this.settle(m);
+      }
+    }
+    return waiting;
   }
 
   async evaluate(points: Record<string, unknown>[]): Promise<Evaluation[]> {
     const P = points.length;
     if (P === 0) return [];
     const S = this.parts.robust ? this.parts.samples : 0;
-    const control = new SharedArrayBuffer(4 * (1 + P));
-    const message = (id: number): BatchMessage => ({ id, points, samples: S, control });
-    const waiting = this.workers.map((w) => {
-      const id = this.next++;
-      return new Promise<BatchReply>((resolve) => {
-        this.pending.set(id, resolve);
-        w.postMessage(message(id));
-      });
-    });
-    const own = runTasks(this.parts, message(-1));
-    const replies = [own, ...(await Promise.all(waiting))];
+    const k = this.workers.length;
+    // entries: the task counter, one failure flag per point, one reply flag per worker
+    const control = new SharedArrayBuffer(4 * (1 + P + k));
+    const ctl = new Int32Array(control);
+    const message = (id: number, done: number): BatchMessage => ({ id, points, samples: S, control, done });
+    const ids = this.workers.map(() => this.next++);
+    const waiting = this.workers.map(({ worker }, i) => new Promise<BatchReply>((resolve) => {
+      this.pending.set(ids[i], resolve);
+      worker.postMessage(message(ids[i], 1 + P + i));
+    }));
+    const own = runTasks(this.parts, message(-1, -1));
+    const replies = [own];
+    for (let i = 0; i < k; i++) replies.push(await this.replyOf(i, ids[i], ctl, 1 + P + i, waiting[i]));
     if (this.failure) throw this.failure;
     const nominal: NominalPart[] = new Array(P);
     const samples: EnsemblePart[] = new Array(P * S);
@@ -98,6 +126,7 @@ export class EvaluationPool {
   }
 
   async close(): Promise<void> {
-    await Promise.all(this.workers.map((w) => w.terminate()));
+    for (const { replies } of this.workers) replies.close();
+    await Promise.all(this.workers.map(({ worker }) => worker.terminate()));
   }
 }
