@@ -1,7 +1,7 @@
 import { NumericalError } from '../../errors.js';
 import type { ComplexEigen } from './complex-eigen.js';
 import { cabs, csqrt } from './complex-scalar.js';
-import { realSymmetricEigen } from './real-symmetric-eigen.js';
+import { symmetricEigenRows } from './symmetric-eigen.js';
 import { scratch, type Workspace } from './workspace.js';
 
 const EPS = Number.EPSILON;
@@ -10,7 +10,7 @@ const MAX_NEWTON = 30;
 /**
  * Eigenvalues and complex orthogonal eigenvectors (V^T V = I) of S = B + rho e_t e_t^T, B real symmetric
  * (row-major n x n) and rho complex: the shape of H - i K / 2 with one trap once the loss common to every
- * site is shifted out. B = U D U^T first (realSymmetricEigen); in that basis S is D + rho w w^T with
+ * site is shifted out. B = U D U^T first (symmetric-eigen.ts, U kept as rows W = U^T); in that basis S is D + rho w w^T with
  * w = U^T e_t, whose eigenvalues solve the secular equation 1 + rho sum_j w_j^2 / (d_j - lambda) = 0 and
  * whose eigenvectors are (D - lambda)^-1 w (Golub, SIAM Rev. 15, 318 (1973); Bunch, Nielsen and Sorensen,
  * Numer. Math. 31, 31 (1978), for the real case). As in LAPACK's dlaed2, components with |rho w_j| below
@@ -24,14 +24,15 @@ const MAX_NEWTON = 30;
  * With a workspace the returned arrays live in it.
  */
 export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rhoRe: number, rhoIm: number, ws?: Workspace): ComplexEigen {
-  const { values: d, vectors: U } = realSymmetricEigen(b, n, ws);
-  const w = scratch(ws, 'r1.w', n);
-  for (let j = 0; j < n; j++) w[j] = U[t * n + j];
+  // W = U^T: row j is eigenvector j of B
+  const W = scratch(ws, 'r1.u', n * n), d = scratch(ws, 'r1.d', n), w = scratch(ws, 'r1.w', n);
+  symmetricEigenRows(b, n, W, d, w);
+  for (let j = 0; j < n; j++) w[j] = W[j * n + t];
   let big = 0;
   for (let j = 0; j < n; j++) big = Math.max(big, Math.abs(d[j]));
   const rho = cabs(rhoRe, rhoIm);
   const tol = 8 * EPS * (big + rho);
-  const active = deflate(d, w, U, n, rho, tol);
+  const active = deflate(d, w, W, n, rho, tol);
   const m = active.length;
   // roots: tau_k, lambda_k = d_k + tau_k, for every active k
   const tr = scratch(ws, 'r1.tr', n), ti = scratch(ws, 'r1.ti', n);
@@ -64,12 +65,12 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
       yr[o] = vr * ir - vi * ii; yi[o] = vr * ii + vi * ir;
     }
   }
-  // V = U Y
+  // V = U Y = W^T Y
   const Vr = scratch(ws, 'r1.vr', n * n), Vi = scratch(ws, 'r1.vi', n * n);
-  for (let i = 0; i < n; i++) {
-    const ri = i * n;
-    for (let j = 0; j < n; j++) {
-      const u = U[ri + j], rj = j * n;
+  for (let j = 0; j < n; j++) {
+    const rj = j * n;
+    for (let i = 0; i < n; i++) {
+      const u = W[rj + i], ri = i * n;
       if (u === 0) continue;
       for (let c = 0; c < n; c++) { Vr[ri + c] += u * yr[rj + c]; Vi[ri + c] += u * yi[rj + c]; }
     }
@@ -80,9 +81,10 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
 /**
  * dlaed2's deflation: w_j with |rho w_j| <= tol is dropped (d_j, u_j is then an eigenpair), and of two
  * active d_i <= d_j with |c s (d_j - d_i)| <= tol after the rotation that moves w_i into w_j, w_i is
- * dropped (the rotation is applied to U's columns and to d). Returns the active indices in ascending d.
+ * dropped (the rotation is applied to the eigenvectors, rows i and j of W, and to d). Returns the active
+ * indices in ascending d.
  */
-function deflate(d: Float64Array, w: Float64Array, U: Float64Array, n: number, rho: number, tol: number): number[] {
+function deflate(d: Float64Array, w: Float64Array, W: Float64Array, n: number, rho: number, tol: number): number[] {
   const order: number[] = [];
   for (let j = 0; j < n; j++) {
     if (rho * Math.abs(w[j]) <= tol) { w[j] = 0; continue; }
@@ -99,9 +101,9 @@ function deflate(d: Float64Array, w: Float64Array, U: Float64Array, n: number, r
       if (Math.abs(c * s * (d[j] - d[i])) <= tol) {
         // new u_i = c u_i - s u_j (w_i -> 0), new u_j = s u_i + c u_j (w_j -> r)
         for (let k = 0; k < n; k++) {
-          const a = U[k * n + i], b = U[k * n + j];
-          U[k * n + i] = c * a - s * b;
-          U[k * n + j] = s * a + c * b;
+          const a = W[i * n + k], b = W[j * n + k];
+          W[i * n + k] = c * a - s * b;
+          W[j * n + k] = s * a + c * b;
         }
         const di = d[i], dj = d[j];
         d[i] = c * c * di + s * s * dj;

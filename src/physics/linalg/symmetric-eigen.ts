@@ -24,12 +24,8 @@ export function symmetricEigen(a: Float64Array, n: number): SymmetricEigen {
   const values = new Float64Array(n);
   const vectors = new Float64Array(n * n);
   if (n === 0) return { n, values, vectors };
-  // W[j * n + i] holds V(i, j): the column sweeps of tred2 and tql2 then run along memory
   const W = scratch.f64('W', n * n), d = scratch.zeros('d', n), e = scratch.zeros('e', n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) W[j * n + i] = a[i * n + j];
-  tred2(n, e, d, W);
-  tql2(n, e, d, W);
-  // tql2 leaves the eigenvalues ascending, eigenvector a in W[a * n ..]
+  symmetricEigenRows(a, n, W, d, e);
   for (let k = 0; k < n; k++) {
     values[k] = d[k];
     const o = k * n;
@@ -42,6 +38,18 @@ export function symmetricEigen(a: Float64Array, n: number): SymmetricEigen {
     for (let m = 0; m < n; m++) vectors[m * n + k] = sign * W[o + m];
   }
   return { n, values, vectors };
+}
+
+/**
+ * The same decomposition into the caller's arrays, without the sign rule: eigenvalue k ascending in d[k], its
+ * eigenvector in row k of W (W[k * n + m] is its component on basis m; rows are what the column sweeps of tred2
+ * and tql2 run along). `e` (length n) is scratch; a is not modified.
+ */
+export function symmetricEigenRows(a: Float64Array, n: number, W: Float64Array, d: Float64Array, e: Float64Array): void {
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) W[j * n + i] = a[i * n + j];
+  for (let i = 0; i < n; i++) { d[i] = 0; e[i] = 0; }
+  tred2(n, e, d, W);
+  tql2(n, e, d, W);
 }
 
 /** sqrt(a^2 + b^2) without overflow, in the JAMA form. */

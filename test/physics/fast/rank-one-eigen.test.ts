@@ -3,8 +3,6 @@ import { NumericalError } from '../../../src/errors.js';
 import { type ComplexMatrix, complexMatMul, complexNormF, complexZeros } from '../../../src/physics/linalg/complex-dense.js';
 import { complexEigen } from '../../../src/physics/linalg/complex-eigen.js';
 import { rankOneSymmetricEigen } from '../../../src/physics/linalg/rank-one-eigen.js';
-import { realSymmetricEigen } from '../../../src/physics/linalg/real-symmetric-eigen.js';
-import { Workspace } from '../../../src/physics/linalg/workspace.js';
 import { rng } from '../../helpers/random.js';
 
 function randomSymmetric(r: () => number, n: number, diag = 75, off = 19): Float64Array {
@@ -14,18 +12,6 @@ function randomSymmetric(r: () => number, n: number, diag = 75, off = 19): Float
     for (let j = i + 1; j < n; j++) a[i * n + j] = a[j * n + i] = off * (2 * r() - 1);
   }
   return a;
-}
-
-/** max |A V - V D| and max |V^T V - I| of a real eigen-decomposition. */
-function realIdentities(a: Float64Array, n: number, values: Float64Array, v: Float64Array): { residual: number; orthogonality: number } {
-  let residual = 0, orthogonality = 0;
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
-    let av = 0, vv = 0;
-    for (let k = 0; k < n; k++) { av += a[i * n + k] * v[k * n + j]; vv += v[k * n + i] * v[k * n + j]; }
-    residual = Math.max(residual, Math.abs(av - v[i * n + j] * values[j]));
-    orthogonality = Math.max(orthogonality, Math.abs(vv - (i === j ? 1 : 0)));
-  }
-  return { residual, orthogonality };
 }
 
 /** S = B + rho e_t e_t^T as a complex matrix. */
@@ -60,51 +46,6 @@ function complexIdentities(s: ComplexMatrix, e: { valuesRe: Float64Array; values
   }
   return { residual, orthogonality, spectrum };
 }
-
-describe('real symmetric eigen-decomposition on flat arrays (tred2 + tql2)', () => {
-  it('gives the closed-form spectrum 2 - 2 cos(k pi / (n + 1)) of the second-difference matrix', () => {
-    // tridiag(-1, 2, -1): eigenvalues 2 - 2 cos(k pi / (n + 1)), k = 1..n (e.g. Strang, Linear Algebra and
-    // Its Applications, 4th ed., sec. 7.4; common practice as a test matrix)
-    for (const n of [1, 2, 5, 16, 33]) {
-      const a = new Float64Array(n * n);
-      for (let i = 0; i < n; i++) { a[i * n + i] = 2; if (i + 1 < n) a[i * n + i + 1] = a[(i + 1) * n + i] = -1; }
-      const e = realSymmetricEigen(a, n);
-      const got = Array.from(e.values).sort((x, y) => x - y);
-      for (let k = 1; k <= n; k++) expect(Math.abs(got[k - 1] - (2 - 2 * Math.cos((k * Math.PI) / (n + 1))))).toBeLessThan(1e-13);
-      const id = realIdentities(a, n, e.values, e.vectors);
-      expect(id.residual).toBeLessThan(1e-13);
-      expect(id.orthogonality).toBeLessThan(1e-13);
-    }
-  });
-
-  it('satisfies A V = V D and V^T V = I on seeded random matrices of 1 to 40 rows, with and without a workspace', () => {
-    const r = rng(31);
-    const ws = new Workspace();
-    for (let n = 1; n <= 40; n++) {
-      const a = randomSymmetric(r, n);
-      for (const w of [undefined, ws]) {
-        const e = realSymmetricEigen(a, n, w);
-        const id = realIdentities(a, n, e.values, e.vectors);
-        expect(id.residual).toBeLessThan(1e-12 * 100);
-        expect(id.orthogonality).toBeLessThan(1e-13);
-      }
-    }
-  });
-
-  it('handles repeated eigenvalues (the same block twice), a diagonal and the zero matrix', () => {
-    const r = rng(32);
-    const b = randomSymmetric(r, 3);
-    const n = 6;
-    const a = new Float64Array(n * n);
-    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) a[i * n + j] = a[(i + 3) * n + j + 3] = b[i * 3 + j];
-    for (const m of [a, Float64Array.from({ length: 36 }, (_, k) => (k % 7 === 0 ? k : 0)), new Float64Array(36)]) {
-      const e = realSymmetricEigen(m, n);
-      const id = realIdentities(m, n, e.values, e.vectors);
-      expect(id.residual).toBeLessThan(1e-12);
-      expect(id.orthogonality).toBeLessThan(1e-13);
-    }
-  });
-});
 
 describe('eigen-decomposition of a real symmetric matrix plus a complex rank-one diagonal term', () => {
   it('agrees with the unitary QR solver and satisfies S V = V Lambda, V^T V = I for trap terms up to the size of the couplings', () => {
