@@ -1,6 +1,6 @@
 import { CM_TO_RAD_PER_PS } from '../constants.js';
 import type { Excitons } from '../excitons.js';
-import { Scratch } from '../linalg/dense.js';
+import { Workspace } from '../linalg/workspace.js';
 import { drudeSpectrum } from '../models/bath.js';
 import { smallestSpacing } from '../models/redfield.js';
 
@@ -25,7 +25,7 @@ export interface RedfieldRates {
   kept(a: number, b: number, c: number, d: number): boolean;
 }
 
-const scratch = new Scratch();
+const scratch = new Workspace();
 
 class Rates implements RedfieldRates {
   constructor(

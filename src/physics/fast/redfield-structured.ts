@@ -1,5 +1,5 @@
 import type { Excitons } from '../excitons.js';
-import { Scratch } from '../linalg/dense.js';
+import { Workspace } from '../linalg/workspace.js';
 import { luFactor, luSolveInPlace, type LuFactors } from '../linalg/lu.js';
 import { toExcitonBasis } from '../models/redfield.js';
 import { notApplicable, unavailable } from './structured-errors.js';
@@ -85,7 +85,7 @@ export function structuredRedfield(p: RedfieldProblem): { efficiency: number; lo
   return { efficiency, lossFraction, transferTime: efficiency > 0 ? trapTime / efficiency : Infinity, balanceResidual };
 }
 
-const scratch = new Scratch();
+const scratch = new Workspace();
 
 /**
  * The secular part and the low-rank sink correction of one problem. The unknowns of the correction are the

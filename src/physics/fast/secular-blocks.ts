@@ -1,7 +1,7 @@
 import { NumericalError } from '../../errors.js';
 import { CM_TO_RAD_PER_PS } from '../constants.js';
 import { complexLuFactorInPlace, complexLuInverseInto } from '../linalg/complex-lu.js';
-import { Scratch } from '../linalg/dense.js';
+import { Workspace } from '../linalg/workspace.js';
 import { STRUCTURED_UNAVAILABLE } from './structured-errors.js';
 import type { RedfieldRates } from './redfield-rates.js';
 
@@ -37,7 +37,7 @@ export interface SecularBlocks {
   readonly diagIm: Float64Array;
 }
 
-const scratch = new Scratch();
+const scratch = new Workspace();
 let sortW = new Float64Array(0);
 let sortPop = new Uint8Array(0);
 /** Bohr frequency, then populations first, then element index: a total order. */

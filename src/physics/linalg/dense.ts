@@ -54,36 +54,3 @@ export function norm1(a: Float64Array, n: number): number {
   }
   return best;
 }
-
-/**
- * Grow-only scratch arrays by name, for routines called many times on small problems: in V8 a typed array of
- * more than 64 bytes has an off-heap backing store that costs several hundred nanoseconds to create, and
- * worker threads creating them at once slow each other down. `f64(name, length)` and `i32(name, length)`
- * return an array of at least `length` entries (only the first `length` are meant) with whatever it last
- * held; it is reallocated only when a longer one is asked for (unlike linalg/workspace.ts, whose arrays have an
- * exact length, so that sizes varying from call to call do not reallocate; Int32 arrays too). Each worker thread
- * has its own module instances, so a module-level Scratch is never shared between threads.
- */
-export class Scratch {
-  private readonly f = new Map<string, Float64Array<ArrayBuffer>>();
-  private readonly i = new Map<string, Int32Array<ArrayBuffer>>();
-
-  f64(name: string, length: number): Float64Array<ArrayBuffer> {
-    let a = this.f.get(name);
-    if (a === undefined || a.length < length) { a = new Float64Array(Math.max(length, 2 * (a?.length ?? 0))); this.f.set(name, a); }
-    return a;
-  }
-
-  /** f64 with its first `length` entries zeroed. */
-  zeros(name: string, length: number): Float64Array<ArrayBuffer> {
-    const a = this.f64(name, length);
-    a.fill(0, 0, length);
-    return a;
-  }
-
-  i32(name: string, length: number): Int32Array<ArrayBuffer> {
-    let a = this.i.get(name);
-    if (a === undefined || a.length < length) { a = new Int32Array(Math.max(length, 2 * (a?.length ?? 0))); this.i.set(name, a); }
-    return a;
-  }
-}

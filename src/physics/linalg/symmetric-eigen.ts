@@ -1,4 +1,4 @@
-import { Scratch } from './dense.js';
+import { Workspace } from './workspace.js';
 
 /** Eigen-decomposition of a real symmetric matrix, eigenvalues ascending. */
 export interface SymmetricEigen {
@@ -9,7 +9,7 @@ export interface SymmetricEigen {
   readonly vectors: Float64Array;
 }
 
-const scratch = new Scratch();
+const scratch = new Workspace();
 
 /**
  * Eigenvalues and orthonormal eigenvectors of a symmetric row-major matrix: Householder tridiagonalization with

@@ -1,7 +1,10 @@
 /**
  * Reusable scratch arrays by name, so that repeated calls on matrices of the same size allocate nothing:
  * in V8 a Float64Array of more than 8 entries lives outside the heap and costs a few hundred nanoseconds to
- * create and zero, as much as the arithmetic of a small eigenproblem. Arrays of up to MAX_CACHED entries
+ * create and zero, as much as the arithmetic of a small eigenproblem, and worker threads creating them at once
+ * slow each other down. `take` and `zeros` give arrays of exactly the length asked; `f64` and `i32` grow-only
+ * ones of at least that length, for sizes that vary from call to call. Each worker thread has its own module
+ * instances, so a module-level Workspace is never shared between threads. Arrays of up to MAX_CACHED entries
  * are kept between calls; larger ones are allocated each time (their cost is small against the work on them).
  * A routine given a workspace may return arrays that live in it: they are overwritten by the next call that
  * uses the same workspace and names.
@@ -10,6 +13,8 @@ export class Workspace {
   /** Largest array kept between calls (4 Mi entries, 32 MiB). */
   static readonly MAX_CACHED = 4 * 1024 * 1024;
   private readonly arrays = new Map<string, Float64Array>();
+  private readonly grown = new Map<string, Float64Array<ArrayBuffer>>();
+  private readonly ints = new Map<string, Int32Array<ArrayBuffer>>();
 
   /** Array `name` of exactly `length` entries with whatever it last held. */
   take(name: string, length: number): Float64Array {
@@ -19,6 +24,23 @@ export class Workspace {
       a = new Float64Array(length);
       this.arrays.set(name, a);
     }
+    return a;
+  }
+
+  /**
+   * Array `name` of at least `length` entries (grow-only, doubling: a shorter or equal later request reuses it,
+   * so sizes that change between calls do not reallocate). Read and write only the first `length`.
+   */
+  f64(name: string, length: number): Float64Array<ArrayBuffer> {
+    let a = this.grown.get(name);
+    if (a === undefined || a.length < length) { a = new Float64Array(Math.max(length, 2 * (a?.length ?? 0))); this.grown.set(name, a); }
+    return a;
+  }
+
+  /** Int32 counterpart of f64. */
+  i32(name: string, length: number): Int32Array<ArrayBuffer> {
+    let a = this.ints.get(name);
+    if (a === undefined || a.length < length) { a = new Int32Array(Math.max(length, 2 * (a?.length ?? 0))); this.ints.set(name, a); }
     return a;
   }
 
