@@ -15,7 +15,7 @@ export interface CommonFlags {
 
 export function addCommonOptions(cmd: Command, opts: { out: string; force?: boolean; seed?: boolean; workers?: boolean }): Command {
   if (opts.seed !== false) cmd.option('--seed <n>', 'random seed (the same seed gives the same run)');
-  if (opts.workers !== false) cmd.option('--workers <n>', 'worker threads for evaluation (default: 1)');
+  if (opts.workers !== false) cmd.option('--workers <n>', 'how many threads evaluate designs (default: 1); results do not depend on the number');
   cmd.option('--out <path>', opts.out);
   cmd.option('--allow-outside', 'allow --out to point outside the working folder');
   if (opts.force) cmd.option('--force', 'overwrite an existing output');
