@@ -7,20 +7,28 @@ type Parts = ReturnType<typeof makeEvaluatorParts>;
 
 /**
  * A batch as every thread receives it. `control` is shared: entry 0 counts the tasks taken, entry 1 + j is set
- * when point j's nominal evaluation failed. Task t < P is point t's nominal metrics, task P + j S + k is
- * sample k of point j's disorder ensemble (P points, S samples each). `done` is the entry the worker sets (and
- * notifies) once its reply is posted.
+ * when point j's nominal evaluation failed. Task t < P is point t's nominal metrics, task P + j C + c is
+ * chunk c of point j's disorder ensemble (P points, S samples each, C = ceil(S / chunk) chunks of `chunk`).
+ * `done` is the entry the worker sets (and notifies) once its reply is posted.
  */
-export interface BatchMessage { id: number; points: Record<string, unknown>[]; samples: number; control: SharedArrayBuffer; done: number }
+export interface BatchMessage { id: number; points: Record<string, unknown>[]; samples: number; chunk: number; control: SharedArrayBuffer; done: number }
 /** How long the main thread blocks for a worker's reply before it waits on the event loop instead, ms. */
 const BLOCK_MS = 200;
-/** What one thread computed: nominal parts by point, one-sample ensemble parts by j S + k. */
+/** What one thread computed: nominal parts by point, ensemble chunks by j C + c. */
 export interface BatchReply { id: number; nominal: [number, NominalPart][]; samples: [number, EnsemblePart][] }
+
+/**
+ * Disorder samples per task for `threads` threads: each point's ensemble in about 2 x threads tasks, few enough
+ * that taking and returning them costs little (one-sample tasks measured about 5% more CPU on the demo), and
+ * enough that no thread waits long for another at the end of a batch.
+ */
+export const samplesPerTask = (samples: number, threads: number): number => Math.max(1, Math.ceil(samples / (2 * threads)));
+const chunksOf = (samples: number, chunk: number) => Math.ceil(samples / chunk);
 
 /** Take tasks of a batch from its shared counter until none is left (on any thread). */
 export function runTasks(parts: Parts, m: BatchMessage): BatchReply {
   const ctl = new Int32Array(m.control);
-  const P = m.points.length, S = m.samples, total = P * (1 + S);
+  const P = m.points.length, S = m.samples, C = chunksOf(S, m.chunk), total = P * (1 + C);
   const designs: ReturnType<Parts['design']>[] = [];
   const designOf = (j: number) => (designs[j] ??= parts.design(m.points[j]));
   const reply: BatchReply = { id: m.id, nominal: [], samples: [] };
@@ -32,20 +40,21 @@ export function runTasks(parts: Parts, m: BatchMessage): BatchReply {
       reply.nominal.push([task, n]);
       continue;
     }
-    const j = Math.floor((task - P) / S), k = task - P - j * S;
+    const j = Math.floor((task - P) / C), c = task - P - j * C;
     if (Atomics.load(ctl, 1 + j) === 1) continue;
-    reply.samples.push([task - P, parts.ensembleOf(designOf(j), k, k + 1)]);
+    reply.samples.push([task - P, parts.ensembleOf(designOf(j), c * m.chunk, Math.min(S, (c + 1) * m.chunk))]);
   }
   return reply;
 }
 
 /**
  * A fixed pool of `size` threads that score batches of decoded points for one job: the main thread and size - 1
- * worker threads. The work of a batch is cut into tasks (each point's nominal metrics first, then each disorder
- * sample of each point) that the threads take one at a time from a shared counter until none is left, so that
+ * worker threads. The work of a batch is cut into tasks (each point's nominal metrics first, then contiguous
+ * chunks of each point's disorder samples) that the threads take one at a time from a shared counter until none
+ * is left, so that
  * a thread that drew cheap tasks takes more and none waits for another (the cost of a sample varies: some fall
  * back to the dense solver), and the main thread works instead of waiting while the workers wake up. Samples of
- * a point whose nominal evaluation already failed are skipped. The one-sample parts are put back in sample order
+ * a point whose nominal evaluation already failed are skipped. The chunks are put back in sample order
  * and combined exactly as a single thread would, so results do not depend on the number of threads or on which
  * took which task.
  */
@@ -106,7 +115,8 @@ export class EvaluationPool {
     // entries: the task counter, one failure flag per point, one reply flag per worker
     const control = new SharedArrayBuffer(4 * (1 + P + k));
     const ctl = new Int32Array(control);
-    const message = (id: number, done: number): BatchMessage => ({ id, points, samples: S, control, done });
+    const chunk = samplesPerTask(S, k + 1);
+    const message = (id: number, done: number): BatchMessage => ({ id, points, samples: S, chunk, control, done });
     const ids = this.workers.map(() => this.next++);
     const waiting = this.workers.map(({ worker }, i) => new Promise<BatchReply>((resolve) => {
       this.pending.set(ids[i], resolve);
@@ -117,12 +127,13 @@ export class EvaluationPool {
     for (let i = 0; i < k; i++) replies.push(await this.replyOf(i, ids[i], ctl, 1 + P + i, waiting[i]));
     if (this.failure) throw this.failure;
     const nominal: NominalPart[] = new Array(P);
-    const samples: EnsemblePart[] = new Array(P * S);
+    const C = chunksOf(S, chunk);
+    const samples: EnsemblePart[] = new Array(P * C);
     for (const r of replies) {
       for (const [j, n] of r.nominal) nominal[j] = n;
       for (const [i, e] of r.samples) samples[i] = e;
     }
-    return points.map((_, j) => this.parts.combine(nominal[j], this.parts.robust && nominal[j].error === undefined ? samples.slice(j * S, (j + 1) * S) : []));
+    return points.map((_, j) => this.parts.combine(nominal[j], this.parts.robust && nominal[j].error === undefined ? samples.slice(j * C, (j + 1) * C) : []));
   }
 
   async close(): Promise<void> {
