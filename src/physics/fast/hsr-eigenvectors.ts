@@ -22,8 +22,9 @@ const DEGENERATE = 1e-6;
 /**
  * Eigenvectors of the complex symmetric S = H - i K'/2, normalized so that V^T V = I: where K' is the same on
  * all sites but one (one trap, a loss common to all), by the rank-one update of H's real eigenbasis
- * (rank-one-eigen.ts); otherwise, or when that fails, by the complex symmetric solver (complex orthogonal transformations, about 10 N^3), and when that breaks down or gives a
- * basis worse conditioned than `maxCondition`, by the unitary QR solver (Hessenberg + shifted QR, about
+ * (rank-one-eigen.ts); otherwise, or when that fails, by the complex symmetric solver (complex orthogonal
+ * transformations, about 10 N^3), and when that breaks down or gives a basis worse conditioned than
+ * `maxCondition`, by the unitary QR solver (Hessenberg + shifted QR, about
  * 60 N^3) followed by normalization in the bilinear form and, inside groups of (nearly) equal eigenvalues,
  * Gram-Schmidt in that form. Returns a failure reason when neither gives a usable basis. The complex
  * symmetric path works in `ws` when given (its arrays are then the workspace's).
