@@ -52,8 +52,6 @@ export function makeEvaluatorParts(c: ConstraintSet, o: Objective) {
   });
   const nominalOf = (d: Design | { error: string }): NominalPart => ('error' in d ? d : guard(() => ({ values: computeMetrics(d, settings, plain).values })));
   const ensembleOf = (d: Design | { error: string }, from: number, to: number): EnsemblePart => ('error' in d ? d : guard(() => ({ ens: ensembleEfficiencies(d, settings, t, from, to) })));
-  const nominal = (p: Record<string, unknown>): NominalPart => nominalOf(design(p));
-  const ensemble = (p: Record<string, unknown>, from: number, to: number): EnsemblePart => ensembleOf(design(p), from, to);
   const fail = (error: string): Evaluation => ({ score: rule.kind === 'weighted_sum' ? NaN : rule.metrics.map(() => NaN), metrics: {}, error });
   const combine = (n: NominalPart, chunks: readonly EnsemblePart[]): Evaluation => {
     if (n.error !== undefined) return fail(n.error);
@@ -71,14 +69,16 @@ export function makeEvaluatorParts(c: ConstraintSet, o: Objective) {
     const score = rule.kind === 'weighted_sum' ? -weightedScore(rule, values) : paretoVector(rule, values);
     return { score, metrics: values, ...(skipped ? { skippedSamples: skipped } : {}) };
   };
-  return { design, nominalOf, ensembleOf, nominal, ensemble, combine, robust, samples };
+  return { design, nominalOf, ensembleOf, combine, robust, samples };
 }
 
 /** The whole evaluation of one point on this thread. */
 export function makeEvaluator(c: ConstraintSet, o: Objective): (p: Record<string, unknown>) => Evaluation {
   const parts = makeEvaluatorParts(c, o);
   return (p) => {
-    const n = parts.nominal(p);
-    return parts.combine(n, parts.robust && n.error === undefined ? [parts.ensemble(p, 0, parts.samples)] : []);
+    // decoded once for the nominal metrics and the ensemble
+    const d = parts.design(p);
+    const n = parts.nominalOf(d);
+    return parts.combine(n, parts.robust && n.error === undefined ? [parts.ensembleOf(d, 0, parts.samples)] : []);
   };
 }

@@ -22,7 +22,7 @@ export interface BatchReply { id: number; nominal: [number, NominalPart][]; samp
  * that taking and returning them costs little (one-sample tasks measured about 5% more CPU on the demo), and
  * enough that no thread waits long for another at the end of a batch.
  */
-export const samplesPerTask = (samples: number, threads: number): number => Math.max(1, Math.ceil(samples / (2 * threads)));
+const samplesPerTask = (samples: number, threads: number): number => Math.max(1, Math.ceil(samples / (2 * threads)));
 const chunksOf = (samples: number, chunk: number) => Math.ceil(samples / chunk);
 
 /** Take tasks of a batch from its shared counter until none is left (on any thread). */
@@ -51,12 +51,11 @@ export function runTasks(parts: Parts, m: BatchMessage): BatchReply {
  * A fixed pool of `size` threads that score batches of decoded points for one job: the main thread and size - 1
  * worker threads. The work of a batch is cut into tasks (each point's nominal metrics first, then contiguous
  * chunks of each point's disorder samples) that the threads take one at a time from a shared counter until none
- * is left, so that
- * a thread that drew cheap tasks takes more and none waits for another (the cost of a sample varies: some fall
- * back to the dense solver), and the main thread works instead of waiting while the workers wake up. Samples of
- * a point whose nominal evaluation already failed are skipped. The chunks are put back in sample order
- * and combined exactly as a single thread would, so results do not depend on the number of threads or on which
- * took which task.
+ * is left, so that a thread that drew cheap tasks takes more and none waits for another (the cost of a sample
+ * varies: some fall back to the dense solver), and the main thread works instead of waiting while the workers
+ * wake up. Samples of a point whose nominal evaluation already failed are skipped. The chunks are put back in
+ * sample order and combined exactly as a single thread would, so results do not depend on the number of
+ * threads or on which took which task.
  */
 export class EvaluationPool {
   private readonly workers: { worker: Worker; replies: MessagePort }[];

@@ -1,9 +1,9 @@
 import { LumenfoldError } from '../../errors.js';
-import type { ComplexMatrix } from '../linalg/complex-dense.js';
+import { type ComplexMatrix, normalizeColumnBilinear } from '../linalg/complex-dense.js';
 import { complexEigen } from '../linalg/complex-eigen.js';
 import { complexSymmetricEigen } from '../linalg/complex-symmetric-eigen.js';
 import { rankOneSymmetricEigen } from '../linalg/rank-one-eigen.js';
-import { cabs, csqrt } from '../linalg/complex-scalar.js';
+import { cabs } from '../linalg/complex-scalar.js';
 import type { Workspace } from '../linalg/workspace.js';
 
 export interface HsrEigen {
@@ -129,18 +129,7 @@ function bilinearOrthonormalize(v: ComplexMatrix, lr: Float64Array, li: Float64A
         re[i * n + c] -= sr * ar - si * ai; im[i * n + c] -= sr * ai + si * ar;
       }
     }
-    let qr = 0, qi = 0, qn = 0;
-    for (let i = 0; i < n; i++) {
-      const a = re[i * n + c], b = im[i * n + c];
-      qr += a * a - b * b; qi += 2 * a * b; qn += a * a + b * b;
-    }
-    if (!(cabs(qr, qi) > 1e-12 * qn)) return `eigenvector ${c + 1} is isotropic (v^T v = 0): the matrix is defective or nearly so`;
-    const [sr, si] = csqrt(qr, qi);
-    const d = sr * sr + si * si, ir = sr / d, ii = -si / d;
-    for (let i = 0; i < n; i++) {
-      const a = re[i * n + c], b = im[i * n + c];
-      re[i * n + c] = a * ir - b * ii; im[i * n + c] = a * ii + b * ir;
-    }
+    if (!normalizeColumnBilinear(re, im, n, c, 1e-12)) return `eigenvector ${c + 1} is isotropic (v^T v = 0): the matrix is defective or nearly so`;
   }
   return undefined;
 }

@@ -127,10 +127,10 @@ export function structuredHsr(p: HsrProblem): StructuredHsrResult {
       if (r !== 0) zrz += r * (z.zr[i] * z.zr[j] + z.zi[i] * z.zi[j]);
     }
     const xz = probeImage(e, z, X.packed, ws);
-    worst = Math.max(worst, probeResidual(z, gamma, xz, X.diagonal, -zrz));
+    worst = Math.max(worst, probeResidual(z, xz, X.diagonal, -zrz));
     const zxz = xz.quadratic;
     // the second image reuses the first one's arrays
-    worst = Math.max(worst, probeResidual(z, gamma, probeImage(e, z, Y.packed, ws), Y.diagonal, -zxz));
+    worst = Math.max(worst, probeResidual(z, probeImage(e, z, Y.packed, ws), Y.diagonal, -zxz));
   }
   if (!(worst <= MAX_PROBE_RESIDUAL)) unavailable(`the residual check failed (relative residual ${worst.toExponential(2)} > ${MAX_PROBE_RESIDUAL})`);
   let efficiency = 0, lossFraction = 0, trapTime = 0;

@@ -24,6 +24,8 @@ export interface Probe {
   readonly wi: Float64Array;
   readonly z2: Float64Array;
   readonly wNorm: number;
+  /** gamma_phi of the operator. */
+  readonly gamma: number;
 }
 
 /** X z for a solution X = V Y V^H, and z^H X z (real for Hermitian X). */
@@ -70,7 +72,7 @@ export function makeProbe(e: Eigenbasis, op: ProbeOperator, index: number, ws?: 
     wi[k] = hr - 0.5 * decay[k] * zi[k];
     w2 += wr[k] * wr[k] + wi[k] * wi[k];
   }
-  return { zr, zi, ar, ai, wr, wi, z2, wNorm: Math.sqrt(w2) };
+  return { zr, zi, ar, ai, wr, wi, z2, wNorm: Math.sqrt(w2), gamma: op.gamma };
 }
 
 /** X z for X = V Y V^H with Y packed (eigenbasis.ts), in O(N^2). With a workspace, the next call reuses its arrays. */
@@ -117,8 +119,8 @@ export function probeImage(e: Eigenbasis, probe: Probe, y: Float64Array, ws?: Wo
  * Commun. Stat. Simul. Comput. 18, 1059 (1989), for trace estimation by quadratic forms).
  * `rhs` is z^H B z, `diagonal` the site populations X_kk.
  */
-export function probeResidual(probe: Probe, gamma: number, img: ProbeImage, diagonal: Float64Array, rhs: number): number {
-  const { wr, wi, z2 } = probe;
+export function probeResidual(probe: Probe, img: ProbeImage, diagonal: Float64Array, rhs: number): number {
+  const { wr, wi, z2, gamma } = probe;
   const { xr, xi } = img;
   const n = wr.length;
   let cross = 0, xz2 = 0, deph = 0, dephSize = 0;

@@ -1,3 +1,5 @@
+import { cabs, csqrt } from './complex-scalar.js';
+
 /**
  * Square complex matrices stored as split real and imaginary parts (row-major Float64Arrays):
  * entry (i, j) is re[i * n + j] + i im[i * n + j]. Small helpers shared by the complex routines.
@@ -6,6 +8,27 @@ export interface ComplexMatrix {
   readonly n: number;
   readonly re: Float64Array;
   readonly im: Float64Array;
+}
+
+/**
+ * Scale column c of a complex matrix (row-major n x n, split parts) so that v^T v = 1, the normalization of
+ * eigenvectors of a complex symmetric matrix (Horn and Johnson, Matrix Analysis, 2nd ed., sec. 4.4). Returns
+ * false, leaving the column as it was, when it is nearly isotropic: |v^T v| < minRatio |v|^2.
+ */
+export function normalizeColumnBilinear(re: Float64Array, im: Float64Array, n: number, c: number, minRatio: number): boolean {
+  let qr = 0, qi = 0, qn = 0;
+  for (let k = c; k < n * n; k += n) {
+    const a = re[k], b = im[k];
+    qr += a * a - b * b; qi += 2 * a * b; qn += a * a + b * b;
+  }
+  if (!(cabs(qr, qi) >= minRatio * qn)) return false;
+  const [sr, si] = csqrt(qr, qi);
+  const d = sr * sr + si * si, ir = sr / d, ii = -si / d;
+  for (let k = c; k < n * n; k += n) {
+    const a = re[k], b = im[k];
+    re[k] = a * ir - b * ii; im[k] = a * ii + b * ir;
+  }
+  return true;
 }
 
 /** Zero n x n complex matrix. */

@@ -1,7 +1,7 @@
-import type { ComplexMatrix } from './complex-dense.js';
+import { type ComplexMatrix, normalizeColumnBilinear } from './complex-dense.js';
 import type { ComplexEigen } from './complex-eigen.js';
 import { NumericalError } from '../../errors.js';
-import { cabs, csqrt } from './complex-scalar.js';
+import { cabs } from './complex-scalar.js';
 import { complexSymmetricQl } from './complex-symmetric-ql.js';
 import { applyQ, complexSymmetricTridiagonal, type ComplexSymmetricTridiagonal } from './complex-symmetric-tridiagonal.js';
 import { tridiagonalEigenvectors } from './complex-tridiagonal-inverse-iteration.js';
@@ -92,18 +92,7 @@ function accumulatedVectors(t: ComplexSymmetricTridiagonal, valuesRe: Float64Arr
   for (let i = 0; i < n; i++) y.re[i * n + i] = 1;
   complexSymmetricQl(valuesRe, valuesIm, er, ei, y);
   for (let c = 0; c < n; c++) {
-    let qr = 0, qi = 0, qn = 0;
-    for (let k = c; k < n * n; k += n) {
-      const a = y.re[k], b = y.im[k];
-      qr += a * a - b * b; qi += 2 * a * b; qn += a * a + b * b;
-    }
-    if (!(cabs(qr, qi) >= 1e-10 * qn)) throw new NumericalError(`eigenvector ${c + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
-    const [sr, si] = csqrt(qr, qi);
-    const d = sr * sr + si * si, ir = sr / d, ii = -si / d;
-    for (let k = c; k < n * n; k += n) {
-      const a = y.re[k], b = y.im[k];
-      y.re[k] = a * ir - b * ii; y.im[k] = a * ii + b * ir;
-    }
+    if (!normalizeColumnBilinear(y.re, y.im, n, c, 1e-10)) throw new NumericalError(`eigenvector ${c + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
   }
 }
 

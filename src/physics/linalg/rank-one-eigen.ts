@@ -1,6 +1,7 @@
 import { NumericalError } from '../../errors.js';
 import type { ComplexEigen } from './complex-eigen.js';
-import { cabs, csqrt } from './complex-scalar.js';
+import { normalizeColumnBilinear } from './complex-dense.js';
+import { cabs } from './complex-scalar.js';
 import { symmetricEigenRows } from './symmetric-eigen.js';
 import { scratch, type Workspace } from './workspace.js';
 
@@ -47,7 +48,6 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
     yr[k * n + k] = 0;
     valuesRe[k] = d[k] + tr[k];
     valuesIm[k] = ti[k];
-    let qr = 0, qi = 0, qn = 0;
     for (let c = 0; c < m; c++) {
       const j = active[c];
       // w_j / ((d_j - d_k) - tau_k)
@@ -55,15 +55,8 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
       const den = xr * xr + xi * xi;
       const vr = (w[j] * xr) / den, vi = (-w[j] * xi) / den;
       yr[j * n + k] = vr; yi[j * n + k] = vi;
-      qr += vr * vr - vi * vi; qi += 2 * vr * vi; qn += vr * vr + vi * vi;
     }
-    if (!(cabs(qr, qi) >= 1e-10 * qn)) throw new NumericalError(`rank-one eigen-solver: eigenvector ${k + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
-    const [sr, si] = csqrt(qr, qi);
-    const s2 = sr * sr + si * si, ir = sr / s2, ii = -si / s2;
-    for (let c = 0; c < m; c++) {
-      const o = active[c] * n + k, vr = yr[o], vi = yi[o];
-      yr[o] = vr * ir - vi * ii; yi[o] = vr * ii + vi * ir;
-    }
+    if (!normalizeColumnBilinear(yr, yi, n, k, 1e-10)) throw new NumericalError(`rank-one eigen-solver: eigenvector ${k + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
   }
   // V = U Y = W^T Y
   const Vr = scratch(ws, 'r1.vr', n * n), Vi = scratch(ws, 'r1.vi', n * n);
@@ -85,16 +78,10 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
  * indices in ascending d.
  */
 function deflate(d: Float64Array, w: Float64Array, W: Float64Array, n: number, rho: number, tol: number): number[] {
-  const order: number[] = [];
+  // d is ascending (symmetricEigenRows sorts it), so neighbours in index order are neighbours in value
+  const active: number[] = [];
   for (let j = 0; j < n; j++) {
     if (rho * Math.abs(w[j]) <= tol) { w[j] = 0; continue; }
-    let p = order.length;
-    order.push(j);
-    while (p > 0 && d[order[p - 1]] > d[j]) { order[p] = order[p - 1]; p--; }
-    order[p] = j;
-  }
-  const active: number[] = [];
-  for (const j of order) {
     const i = active.length ? active[active.length - 1] : -1;
     if (i >= 0) {
       const r = cabs(w[i], w[j]), c = w[j] / r, s = w[i] / r;
