@@ -7,9 +7,9 @@ import type { DesignRecord } from '../output/record.js';
 import { formatXyz } from '../output/xyz.js';
 import { arraySvg } from '../report/array-svg.js';
 import { levelsSvg } from '../report/levels-svg.js';
+import type { ExportFormat } from './export-formats.js';
 
-export const EXPORT_FORMATS = ['json', 'xyz', 'pdb', 'csv', 'hamiltonian', 'couplings', 'anchors', 'svg-array', 'svg-levels'] as const;
-export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+export { EXPORT_FORMATS, type ExportFormat } from './export-formats.js';
 
 /** The text of a design in one export format; couplings use `system` (default: automatic dipole model, vacuum). */
 export function exportDesign(r: DesignRecord, format: ExportFormat, system: MetricSettings['system'] = {}): string {

@@ -30,6 +30,8 @@ export function buildProgram(ctx: CliContext): Command {
     .showHelpAfterError(false)
     .exitOverride()
     .configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr });
+  // Each command loads its action (and the libraries behind it) only when it runs, so that --help, --version
+  // and a command's own start-up do not load the others'.
   for (const make of [optimizeCommand, scoreCommand, rankCommand, sweepCommand, exportCommand, checkCommand, simulateCommand, reportCommand]) program.addCommand(make(ctx).exitOverride().configureOutput({ writeOut: ctx.stdout, writeErr: ctx.stderr }));
   return program;
 }

@@ -1,5 +1,4 @@
 import { Command } from 'commander';
-import { checkConfigs } from '../../actions/check.js';
 import { formatIssue } from '../../config/config-error.js';
 import { InputError } from '../../errors.js';
 import type { CliContext } from '../context.js';
@@ -9,7 +8,8 @@ export function checkCommand(ctx: CliContext): Command {
     .description('validate constraint, objective, palette and sweep files; report every error with its path in the file')
     .argument('<files...>', 'config files (YAML or JSON)')
     .option('--json', 'print the report as JSON')
-    .action((files: string[], flags: { json?: boolean }) => {
+    .action(async (files: string[], flags: { json?: boolean }) => {
+      const { checkConfigs } = await import('../../actions/check.js');
       const report = checkConfigs(files);
       if (flags.json) ctx.stdout(JSON.stringify(report, null, 2) + '\n');
       else {

@@ -1,9 +1,6 @@
 import { Command, Option } from 'commander';
-import { writeFileAtomic } from '../../output/atomic.js';
-import { readDesignFile } from '../../output/design-file.js';
-import { loadConfigFile } from '../../config/load.js';
-import { EXPORT_FORMATS, exportDesign, type ExportFormat } from '../../actions/exports.js';
-import { metricSettingsFrom } from '../../actions/settings.js';
+import { EXPORT_FORMATS, type ExportFormat } from '../../actions/export-formats.js';
+import type { MetricSettings } from '../../metrics/evaluate.js';
 import { safeOutputPath } from '../paths.js';
 import type { CliContext } from '../context.js';
 
@@ -16,11 +13,17 @@ export function exportCommand(ctx: CliContext): Command {
     .option('--out <file>', 'write to this file instead of stdout')
     .option('--force', 'overwrite an existing file')
     .option('--allow-outside', 'allow --out to point outside the working folder')
-    .action((file: string, f: { format: ExportFormat; objective?: string; out?: string; force?: boolean; allowOutside?: boolean }) => {
+    .action(async (file: string, f: { format: ExportFormat; objective?: string; out?: string; force?: boolean; allowOutside?: boolean }) => {
+      const [{ readDesignFile }, { exportDesign }] = await Promise.all([import('../../output/design-file.js'), import('../../actions/exports.js')]);
       const rec = readDesignFile(file);
-      const system = f.objective ? metricSettingsFrom(loadConfigFile(f.objective, 'objective'), rec.sites.length).system : undefined;
+      let system: MetricSettings['system'] | undefined;
+      if (f.objective) {
+        const [{ loadConfigFile }, { metricSettingsFrom }] = await Promise.all([import('../../config/load.js'), import('../../actions/settings.js')]);
+        system = metricSettingsFrom(loadConfigFile(f.objective, 'objective'), rec.sites.length).system;
+      }
       const text = exportDesign(rec, f.format, system);
       if (!f.out) { ctx.stdout(text); return; }
+      const { writeFileAtomic } = await import('../../output/atomic.js');
       writeFileAtomic(safeOutputPath('--out', f.out, Boolean(f.force), Boolean(f.allowOutside)), text);
     });
 }

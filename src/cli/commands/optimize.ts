@@ -1,5 +1,4 @@
 import { Command } from 'commander';
-import { optimize } from '../../actions/optimize.js';
 import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../common.js';
 import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
@@ -37,6 +36,7 @@ export function optimizeCommand(ctx: CliContext): Command {
     if ((f.resume || f.job) && (f.optimizer || f.budget || f.batch || f.seed)) {
       throw new InputError('--optimizer, --budget, --batch and --seed come from the job when --resume or --job is given');
     }
+    const { optimize } = await import('../../actions/optimize.js');
     let bar: ReturnType<typeof progressBar> | undefined;
     const s = await withStopSignals(ctx, (shouldStop) => optimize({
       resume: f.resume,

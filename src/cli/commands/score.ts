@@ -1,5 +1,5 @@
 import { Command } from 'commander';
-import { rankDesignFiles, scoreDesignFiles, type ScoredFile } from '../../actions/score.js';
+import type { ScoredFile } from '../../actions/score.js';
 import type { CliContext } from '../context.js';
 import { parseWorkers } from '../common.js';
 
@@ -22,6 +22,7 @@ export function scoreCommand(ctx: CliContext): Command {
     .option('--workers <n>', 'worker threads sharing out each design\'s disorder samples (default: 1)')
     .option('--json', 'print the result as JSON')
     .action(async (files: string[], f: { objective?: string; json?: boolean; workers?: string }) => {
+      const { scoreDesignFiles } = await import('../../actions/score.js');
       const { results } = await scoreDesignFiles(files, f.objective, parseWorkers(f.workers));
       ctx.stdout(f.json ? JSON.stringify(results, null, 2) + '\n' : table(results, false));
     });
@@ -35,6 +36,7 @@ export function rankCommand(ctx: CliContext): Command {
     .option('--workers <n>', 'worker threads sharing out each design\'s disorder samples (default: 1)')
     .option('--json', 'print the result as JSON')
     .action(async (files: string[], f: { objective?: string; json?: boolean; workers?: string }) => {
+      const { rankDesignFiles } = await import('../../actions/score.js');
       const ranked = await rankDesignFiles(files, f.objective, parseWorkers(f.workers));
       ctx.stdout(f.json ? JSON.stringify(ranked, null, 2) + '\n' : table(ranked, true));
     });

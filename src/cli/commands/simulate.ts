@@ -1,5 +1,5 @@
 import { Command, Option } from 'commander';
-import { simulate, type SimulateRequest } from '../../actions/simulate.js';
+import type { SimulateRequest } from '../../actions/simulate.js';
 import { InputError } from '../../errors.js';
 import type { ModelName } from '../../physics/transport.js';
 import { parseNumber, parseSiteList, parseStart, parseTimes } from '../parse.js';
@@ -35,7 +35,7 @@ export function simulateCommand(ctx: CliContext): Command {
     .option('--cutoff <cm>', 'redfield: Drude-Lorentz cutoff frequency, cm^-1 (default 100)')
     .option('--times <spec>', 'add population traces: END:COUNT (ps) or a comma list of times in ps')
     .option('--json', 'print the result as JSON')
-    .action((flags: SimulateFlags) => {
+    .action(async (flags: SimulateFlags) => {
       const req: SimulateRequest = {
         hamiltonianFile: flags.hamiltonian,
         traps: parseSiteList('--trap', flags.trap),
@@ -52,6 +52,7 @@ export function simulateCommand(ctx: CliContext): Command {
         req.cutoff = parseNumber('--cutoff', flags.cutoff, 'positive');
       }
       if (flags.times !== undefined) req.times = parseTimes(flags.times);
+      const { simulate } = await import('../../actions/simulate.js');
       const r = simulate(req);
       if (flags.json) {
         ctx.stdout(JSON.stringify(r, null, 2) + '\n');

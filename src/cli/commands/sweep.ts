@@ -1,5 +1,4 @@
 import { Command } from 'commander';
-import { sweep } from '../../actions/sweep.js';
 import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../common.js';
 import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
@@ -14,6 +13,7 @@ export function sweepCommand(ctx: CliContext): Command {
     .option('--plan', 'only write each point\'s job.json (run one elsewhere with: lumenfold optimize --job FILE --out ITS_FOLDER --force)');
   addCommonOptions(cmd, { out: 'sweep folder (default designs/sweeps/<name>)' });
   return cmd.action(async (file: string, f: CommonFlags & { budget?: string; plan?: boolean }) => {
+    const { sweep } = await import('../../actions/sweep.js');
     const r = await withStopSignals(ctx, (shouldStop) => sweep({
       shouldStop,
       planOnly: Boolean(f.plan),
