@@ -1,16 +1,40 @@
-// Worker thread of pool.ts: takes tasks of each batch it is sent from the shared counter until none is left.
-import { type MessagePort, parentPort, workerData } from 'node:worker_threads';
-import type { ConstraintSet } from '../config/constraints-types.js';
-import type { Objective } from '../config/objective-types.js';
+// Worker thread of pool.ts: sleeps on its signal word until an order is posted on its batch port. The first
+// order is the job; then it takes tasks of each batch from the shared counter until none is left, and stops
+// when told to.
+import { type MessagePort, receiveMessageOnPort, workerData } from 'node:worker_threads';
 import { makeEvaluatorParts } from './evaluator.js';
-import { runTasks, type BatchMessage } from './pool.js';
+import { runTasks, type WorkerOrder } from './pool.js';
 
-const { constraints, objective, replies } = workerData as { constraints: ConstraintSet; objective: Objective; replies: MessagePort };
-const parts = makeEvaluatorParts(constraints, objective);
-parentPort!.on('message', (m: BatchMessage) => {
-  replies.postMessage(runTasks(parts, m));
-  // the reply is on the port: wake the main thread if it is blocked waiting for it
-  const ctl = new Int32Array(m.control);
-  Atomics.store(ctl, m.done, 1);
-  Atomics.notify(ctl, m.done);
-});
+const { batches, replies, signal } = workerData as { batches: MessagePort; replies: MessagePort; signal: Int32Array };
+
+/** The next order, sleeping on the signal word until there is one. */
+function nextOrder(): WorkerOrder {
+  for (;;) {
+    // read the count before looking at the port: an order posted after the look changes the count first
+    const seen = Atomics.load(signal, 0);
+    const got = receiveMessageOnPort(batches);
+    if (got) return got.message as WorkerOrder;
+    Atomics.wait(signal, 0, seen);
+  }
+}
+
+function serve(): void {
+  let parts: ReturnType<typeof makeEvaluatorParts> | undefined;
+  for (;;) {
+    const m = nextOrder();
+    if ('stop' in m) break;
+    if ('job' in m) {
+      parts = makeEvaluatorParts(m.job.constraints, m.job.objective);
+      continue;
+    }
+    replies.postMessage(runTasks(parts!, m));
+    // the reply is on the port: wake the main thread if it is blocked waiting for it
+    const ctl = new Int32Array(m.control);
+    Atomics.store(ctl, m.done, 1);
+    Atomics.notify(ctl, m.done);
+  }
+  batches.close();
+  replies.close();
+}
+
+serve();

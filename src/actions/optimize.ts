@@ -12,6 +12,7 @@ import { rankingCsv } from '../output/csv.js';
 import { hashOf, makeJob, sha256Hex, searchSettings, type OptimizationJob } from './job.js';
 import { loadDesignProblem } from './load-configs.js';
 import type { OptimizationOutcome } from './optimize-core.js';
+import { startWorkers } from './pool.js';
 import { toRecord } from './records.js';
 import { VERSION } from './version.js';
 
@@ -52,6 +53,8 @@ export interface OptimizeSummary {
 
 /** Run an optimization (or continue one from its checkpoint) and write its run folder. */
 export async function optimize(req: OptimizeRequest): Promise<OptimizeSummary> {
+  // the workers load their modules while this thread reads and checks the configuration
+  if (req.workers > 1) startWorkers(req.workers - 1);
   let job: OptimizationJob;
   let folder: string;
   let files: { constraints: string; objective: string } | undefined;

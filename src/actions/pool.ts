@@ -2,89 +2,147 @@ import { MessageChannel, type MessagePort, receiveMessageOnPort, Worker } from '
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import { makeEvaluatorParts, type EnsemblePart, type Evaluation, type NominalPart } from './evaluator.js';
+import { batchTasks, type TaskTable } from './tasks.js';
 
 type Parts = ReturnType<typeof makeEvaluatorParts>;
 
 /**
  * A batch as every thread receives it. `control` is shared: entry 0 counts the tasks taken, entry 1 + j is set
- * when point j's nominal evaluation failed. Task t < P is point t's nominal metrics, task P + j C + c is
- * chunk c of point j's disorder ensemble (P points, S samples each, C = ceil(S / chunk) chunks of `chunk`).
- * `done` is the entry the worker sets (and notifies) once its reply is posted.
+ * when point j's nominal evaluation failed. `tasks` is the batch's task table (tasks.ts). `done` is the entry the
+ * worker sets (and notifies) once its reply is posted.
  */
-export interface BatchMessage { id: number; points: Record<string, unknown>[]; samples: number; chunk: number; control: SharedArrayBuffer; done: number }
+export interface BatchMessage { id: number; points: Record<string, unknown>[]; tasks: Int32Array; control: SharedArrayBuffer; done: number }
+/** What a worker finds on its batch port: the job it scores (first), a batch, or the order to stop. */
+export type WorkerOrder = { job: { constraints: ConstraintSet; objective: Objective } } | BatchMessage | { stop: true };
 /** How long the main thread blocks for a worker's reply before it waits on the event loop instead, ms. */
 const BLOCK_MS = 200;
-/** What one thread computed: nominal parts by point, ensemble chunks by j C + c. */
-export interface BatchReply { id: number; nominal: [number, NominalPart][]; samples: [number, EnsemblePart][] }
 
-/**
- * Disorder samples per task for `threads` threads: each point's ensemble in about 2 x threads tasks, few enough
- * that taking and returning them costs little (one-sample tasks measured about 5% more CPU on the demo), and
- * enough that no thread waits long for another at the end of a batch.
- */
-const samplesPerTask = (samples: number, threads: number): number => Math.max(1, Math.ceil(samples / (2 * threads)));
-const chunksOf = (samples: number, chunk: number) => Math.ceil(samples / chunk);
+/** What one thread computed: nominal parts by point, ensemble chunks by task index. */
+export interface BatchReply { id: number; nominal: [number, NominalPart][]; samples: [number, EnsemblePart][] }
 
 /** Take tasks of a batch from its shared counter until none is left (on any thread). */
 export function runTasks(parts: Parts, m: BatchMessage): BatchReply {
   const ctl = new Int32Array(m.control);
-  const P = m.points.length, S = m.samples, C = chunksOf(S, m.chunk), total = P * (1 + C);
+  const { tasks } = m;
+  const total = tasks.length / 3;
   const designs: ReturnType<Parts['design']>[] = [];
   const designOf = (j: number) => (designs[j] ??= parts.design(m.points[j]));
   const reply: BatchReply = { id: m.id, nominal: [], samples: [] };
   for (let task = Atomics.add(ctl, 0, 1); task < total; task = Atomics.add(ctl, 0, 1)) {
-    if (task < P) {
-      const n = parts.nominalOf(designOf(task));
+    const j = tasks[3 * task], from = tasks[3 * task + 1], to = tasks[3 * task + 2];
+    if (from < 0) {
+      const n = parts.nominalOf(designOf(j));
       // a point whose nominal evaluation failed is scored as failed: its samples are not needed
-      if (n.error !== undefined) Atomics.store(ctl, 1 + task, 1);
-      reply.nominal.push([task, n]);
+      if (n.error !== undefined) Atomics.store(ctl, 1 + j, 1);
+      reply.nominal.push([j, n]);
       continue;
     }
-    const j = Math.floor((task - P) / C), c = task - P - j * C;
     if (Atomics.load(ctl, 1 + j) === 1) continue;
-    reply.samples.push([task - P, parts.ensembleOf(designOf(j), c * m.chunk, Math.min(S, (c + 1) * m.chunk))]);
+    reply.samples.push([task, parts.ensembleOf(designOf(j), from, to)]);
   }
   return reply;
+}
+
+interface PoolWorker {
+  worker: Worker;
+  /** Batches go out on this port; the worker reads it without its event loop. */
+  batches: MessagePort;
+  /** Replies come back on this one, which the main thread can read without the event loop. */
+  replies: MessagePort;
+  /** Entry 0 counts the orders posted to this worker; the worker sleeps on it between batches. */
+  signal: Int32Array;
+  /** Set when the thread failed (also before a pool took it); onFailure tells the pool that owns it. */
+  failure?: Error;
+  onFailure?: (e: Error) => void;
+}
+
+const spare: PoolWorker[] = [];
+
+/** Post an order on a worker's batch port and wake it. */
+function orderWorker(w: PoolWorker, m: WorkerOrder): void {
+  w.batches.postMessage(m);
+  Atomics.add(w.signal, 0, 1);
+  Atomics.notify(w.signal, 0);
+}
+
+function startWorker(): PoolWorker {
+  const out = new MessageChannel(), back = new MessageChannel();
+  const signal = new Int32Array(new SharedArrayBuffer(4));
+  const url = new URL('./eval-worker.js', import.meta.url);
+  const worker = new Worker(url, { workerData: { batches: out.port2, replies: back.port2, signal }, transferList: [out.port2, back.port2] });
+  const w: PoolWorker = { worker, batches: out.port1, replies: back.port1, signal };
+  worker.on('error', (e) => {
+    w.failure = e;
+    w.onFailure?.(e);
+  });
+  return w;
+}
+
+/**
+ * Start `count` worker threads now, before the job is known, so that they load their modules (about 0.2 s)
+ * while the main thread reads and checks the configuration; the next EvaluationPool takes them. Spare workers
+ * do not keep the process alive (a command that fails before its pool exists still exits).
+ */
+export function startWorkers(count: number): void {
+  while (spare.length < count) {
+    const w = startWorker();
+    w.worker.unref();
+    spare.push(w);
+  }
+}
+
+function takeWorkers(count: number): PoolWorker[] {
+  const got = spare.splice(0, count);
+  while (got.length < count) got.push(startWorker());
+  return got;
 }
 
 /**
  * A fixed pool of `size` threads that score batches of decoded points for one job: the main thread and size - 1
  * worker threads. The work of a batch is cut into tasks (each point's nominal metrics first, then contiguous
- * chunks of each point's disorder samples) that the threads take one at a time from a shared counter until none
- * is left, so that a thread that drew cheap tasks takes more and none waits for another (the cost of a sample
- * varies: some fall back to the dense solver), and the main thread works instead of waiting while the workers
- * wake up. Samples of a point whose nominal evaluation already failed are skipped. The chunks are put back in
- * sample order and combined exactly as a single thread would, so results do not depend on the number of
- * threads or on which took which task.
+ * chunks of each point's disorder samples, smaller towards the end: tasks.ts) that the threads take one at a time
+ * from a shared counter until none is left, so that a thread that drew cheap tasks takes more and none waits
+ * long for another (the cost of a sample varies: some fall back to the dense solver), and the main thread works
+ * instead of waiting while the workers wake up. Samples of a point whose nominal evaluation already failed are
+ * skipped. The chunks are put back in sample order and combined exactly as a single thread would, so results
+ * do not depend on the number of threads or on which took which task.
+ * Between batches a worker sleeps in Atomics.wait on its signal word and reads its orders with
+ * receiveMessageOnPort, so that no batch waits for a turn of its event loop. (Polling shared memory for a
+ * few ms before sleeping, on either side, was tried: it gained nothing measurable on an idle machine and
+ * slowed runs badly on a loaded one, where the polling thread takes the core from one that computes.)
  */
 export class EvaluationPool {
-  private readonly workers: { worker: Worker; replies: MessagePort }[];
+  private readonly workers: PoolWorker[];
   private readonly parts: Parts;
   private next = 0;
   private readonly pending = new Map<number, (r: BatchReply) => void>();
   private failure: Error | undefined;
+  private readonly tables = new Map<string, TaskTable>();
 
   constructor(size: number, constraints: ConstraintSet, objective: Objective) {
     this.parts = makeEvaluatorParts(constraints, objective);
-    const url = new URL('./eval-worker.js', import.meta.url);
-    this.workers = Array.from({ length: Math.max(0, size - 1) }, () => {
-      // replies come back on a port of their own, which the main thread can read without the event loop
-      const { port1, port2 } = new MessageChannel();
-      const w = new Worker(url, { workerData: { constraints, objective, replies: port2 }, transferList: [port2] });
-      port1.on('message', (m: BatchReply) => this.settle(m));
-      w.on('error', (e) => {
+    this.workers = takeWorkers(Math.max(0, size - 1));
+    for (const w of this.workers) {
+      w.worker.ref();
+      w.replies.on('message', (m: BatchReply) => this.settle(m));
+      w.onFailure = (e) => {
         this.failure = e;
         for (const done of this.pending.values()) done({ id: -1, nominal: [], samples: [] });
         this.pending.clear();
-      });
-      return { worker: w, replies: port1 };
-    });
+      };
+      if (w.failure) this.failure = w.failure;
+      this.order(w, { job: { constraints, objective } });
+    }
   }
 
   private settle(m: BatchReply): void {
     const done = this.pending.get(m.id);
     this.pending.delete(m.id);
     done?.(m);
+  }
+
+  private order(w: PoolWorker, m: WorkerOrder): void {
+    orderWorker(w, m);
   }
 
   /**
@@ -106,37 +164,48 @@ export class EvaluationPool {
     return waiting;
   }
 
+  private tableFor(P: number, S: number): TaskTable {
+    const key = `${P}/${S}`;
+    let t = this.tables.get(key);
+    if (!t) this.tables.set(key, (t = batchTasks(P, S, this.workers.length + 1)));
+    return t;
+  }
+
   async evaluate(points: Record<string, unknown>[]): Promise<Evaluation[]> {
     const P = points.length;
     if (P === 0) return [];
     const S = this.parts.robust ? this.parts.samples : 0;
     const k = this.workers.length;
+    const table = this.tableFor(P, S);
     // entries: the task counter, one failure flag per point, one reply flag per worker
     const control = new SharedArrayBuffer(4 * (1 + P + k));
     const ctl = new Int32Array(control);
-    const chunk = samplesPerTask(S, k + 1);
-    const message = (id: number, done: number): BatchMessage => ({ id, points, samples: S, chunk, control, done });
+    const message = (id: number, done: number): BatchMessage => ({ id, points, tasks: table.tasks, control, done });
     const ids = this.workers.map(() => this.next++);
-    const waiting = this.workers.map(({ worker }, i) => new Promise<BatchReply>((resolve) => {
+    const waiting = this.workers.map((w, i) => new Promise<BatchReply>((resolve) => {
       this.pending.set(ids[i], resolve);
-      worker.postMessage(message(ids[i], 1 + P + i));
+      this.order(w, message(ids[i], 1 + P + i));
     }));
     const own = runTasks(this.parts, message(-1, -1));
     const replies = [own];
     for (let i = 0; i < k; i++) replies.push(await this.replyOf(i, ids[i], ctl, 1 + P + i, waiting[i]));
     if (this.failure) throw this.failure;
     const nominal: NominalPart[] = new Array(P);
-    const C = chunksOf(S, chunk);
-    const samples: EnsemblePart[] = new Array(P * C);
+    const samples: EnsemblePart[] = new Array(table.tasks.length / 3);
     for (const r of replies) {
       for (const [j, n] of r.nominal) nominal[j] = n;
-      for (const [i, e] of r.samples) samples[i] = e;
+      for (const [t, e] of r.samples) samples[t] = e;
     }
-    return points.map((_, j) => this.parts.combine(nominal[j], this.parts.robust && nominal[j].error === undefined ? samples.slice(j * C, (j + 1) * C) : []));
+    const { first } = table;
+    return points.map((_, j) => this.parts.combine(nominal[j], this.parts.robust && nominal[j].error === undefined ? samples.slice(first[j], first[j + 1]) : []));
   }
 
   async close(): Promise<void> {
-    for (const { replies } of this.workers) replies.close();
+    for (const w of this.workers) {
+      this.order(w, { stop: true });
+      w.batches.close();
+      w.replies.close();
+    }
     await Promise.all(this.workers.map(({ worker }) => worker.terminate()));
   }
 }

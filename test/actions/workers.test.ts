@@ -1,3 +1,7 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
 import { DEMO } from '../../src/actions/demo.js';
@@ -7,12 +11,14 @@ import { Rng } from '../../src/search/rng.js';
 import { designSpace } from '../../src/space/design-space.js';
 
 // The pool runs the built worker script (npm test builds first), so it is imported from dist.
-const { EvaluationPool } = await import(new URL('../../dist/actions/pool.js', import.meta.url).href) as typeof import('../../src/actions/pool.js');
+const { EvaluationPool, startWorkers } = await import(new URL('../../dist/actions/pool.js', import.meta.url).href) as typeof import('../../src/actions/pool.js');
 
 const constraints = loadConfigFile(DEMO.constraints, 'constraints');
 const objective = loadConfigFile(DEMO.objective, 'objective');
 const ds = designSpace(constraints);
 const local = makeEvaluator(constraints, objective);
+// the 2-thread pool takes a worker started before the job was known (as optimize starts them)
+startWorkers(1);
 const pools = [1, 2, 3].map((k) => new EvaluationPool(k, constraints, objective));
 afterAll(async () => { await Promise.all(pools.map((p) => p.close())); });
 
@@ -25,5 +31,18 @@ describe('evaluation does not depend on the number of workers (fast-check)', () 
       const expected = points.map(local);
       for (const pool of pools) expect(await pool.evaluate(points)).toEqual(expected);
     }), { numRuns: 15 });
+  });
+});
+
+describe('workers started ahead of a job', () => {
+  it('do not keep the process alive when no pool takes them (a command that fails early still exits)', () => {
+    // a script file, not --input-type=module -e: workers inherit the parent's flags, and that one breaks them
+    const dir = mkdtempSync(join(tmpdir(), 'lumenfold-spare-'));
+    const script = join(dir, 'spare.mjs');
+    const pool = new URL('../../dist/actions/pool.js', import.meta.url).href;
+    writeFileSync(script, `const m = await import(${JSON.stringify(pool)}); m.startWorkers(2); setTimeout(() => console.log('started'), 500);\n`);
+    // the workers sleep until a pool gives them a job, forever: held, the process would hit the timeout
+    const out = execFileSync(process.execPath, [script], { encoding: 'utf8', timeout: 20_000 });
+    expect(out.trim()).toBe('started');
   });
 });
