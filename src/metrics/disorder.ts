@@ -3,6 +3,7 @@ import { requireNumber } from '../options.js';
 import { degToRad } from '../physics/constants.js';
 import type { Site, Vec3 } from '../physics/types.js';
 import { Rng } from '../search/rng.js';
+import { norm3 } from '../physics/norm3.js';
 
 /**
  * Static disorder: Gaussian site-energy offsets (sigma, cm^-1), isotropic Gaussian position jitter (sigma per
@@ -48,12 +49,12 @@ export function makeEnsemble(model: DisorderModel, maxSites: number): DisorderEn
 
 /** Rotate unit u by a small random tilt: add a Gaussian perpendicular component and renormalize. */
 function tilt(u: Vec3, g: ArrayLike<number>, offset: number, sigmaRad: number): Vec3 {
-  const len = Math.hypot(u[0], u[1], u[2]);
+  const len = norm3(u[0], u[1], u[2]);
   const e: Vec3 = [u[0] / len, u[1] / len, u[2] / len];
   const d = [g[offset] * sigmaRad, g[offset + 1] * sigmaRad, g[offset + 2] * sigmaRad];
   const along = d[0] * e[0] + d[1] * e[1] + d[2] * e[2];
   const v: Vec3 = [e[0] + d[0] - along * e[0], e[1] + d[1] - along * e[1], e[2] + d[2] - along * e[2]];
-  const n = Math.hypot(v[0], v[1], v[2]);
+  const n = norm3(v[0], v[1], v[2]);
   return [v[0] / n, v[1] / n, v[2] / n];
 }
 

@@ -1,11 +1,15 @@
 import { InputError } from '../errors.js';
 import { DIPOLE_PREFACTOR_CM } from './constants.js';
 import type { Screening, Vec3 } from './types.js';
+import { norm3 } from './norm3.js';
 
-/** Unit vector along v; throws when v is zero or not finite. */
-export function unit(v: Vec3, what = 'direction'): Vec3 {
-  const len = Math.hypot(v[0], v[1], v[2]);
-  if (!Number.isFinite(len) || len === 0) throw new InputError(`${what} must be a finite non-zero vector, got [${v.join(', ')}]`);
+/** Unit vector along v; throws when v is zero or not finite. `what` names v in the message (a number i: site i + 1's direction). */
+export function unit(v: Vec3, what: string | number = 'direction'): Vec3 {
+  const len = norm3(v[0], v[1], v[2]);
+  if (!Number.isFinite(len) || len === 0) {
+    const name = typeof what === 'number' ? `site ${what + 1} direction` : what;
+    throw new InputError(`${name} must be a finite non-zero vector, got [${v.join(', ')}]`);
+  }
   return [v[0] / len, v[1] / len, v[2] / len];
 }
 
@@ -58,20 +62,18 @@ export interface DipoleSpec {
 
 /** |b - a|, as separation computes it. */
 function distance(a: Vec3, b: Vec3): number {
-  return Math.hypot(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
-}
-
-function separation(a: Vec3, b: Vec3): { r: Vec3; R: number } {
-  const d: Vec3 = [b[0] - a[0], b[1] - a[1], b[2] - a[2]];
-  const R = Math.hypot(d[0], d[1], d[2]);
-  return { r: [d[0] / R, d[1] / R, d[2] / R], R };
+  return norm3(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
 }
 
 /** Point-dipole coupling J = 5.0341 f kappa mu_m mu_n / R^3, cm^-1 (CONVENTIONS.md). */
 export function pointDipoleCoupling(m: DipoleSpec, n: DipoleSpec, screening: Screening = { kind: 'none' }): number {
-  const { r, R } = separation(m.position, n.position);
+  const a = m.position, b = n.position;
+  const dx = b[0] - a[0], dy = b[1] - a[1], dz = b[2] - a[2];
+  const R = norm3(dx, dy, dz);
   if (!(R > 0)) throw new InputError('two dyes sit at the same position; the coupling is undefined');
-  const kappa = orientationFactor(m.direction, n.direction, r);
+  // orientationFactor with r = d / R, without building r
+  const u = m.direction, v = n.direction;
+  const kappa = dot(u, v) - (3 * ((u[0] * dx + u[1] * dy + u[2] * dz) / R) * ((v[0] * dx + v[1] * dy + v[2] * dz) / R));
   return (DIPOLE_PREFACTOR_CM * screeningFactor(screening, R) * kappa * m.dipole * n.dipole) / (R * R * R);
 }
 
@@ -93,7 +95,7 @@ export function extendedDipoleCoupling(m: DipoleSpec, n: DipoleSpec, screening: 
     const p0 = a[0] + (sm * lm * u[0]) / 2, p1 = a[1] + (sm * lm * u[1]) / 2, p2 = a[2] + (sm * lm * u[2]) / 2;
     for (let sn = 1; sn >= -1; sn -= 2) {
       const q0 = b[0] + (sn * ln * v[0]) / 2, q1 = b[1] + (sn * ln * v[1]) / 2, q2 = b[2] + (sn * ln * v[2]) / 2;
-      const d = Math.hypot(q0 - p0, q1 - p1, q2 - p2);
+      const d = norm3(q0 - p0, q1 - p1, q2 - p2);
       if (!(d > 0)) throw new InputError('two extended-dipole charges coincide; the dyes overlap');
       sum += (sm * sn) / d;
     }

@@ -7,6 +7,7 @@ import { SearchSpace } from '../search/space/space.js';
 import { scaffoldAnchors } from '../config/anchors.js';
 import { coneDirection, normalize } from './geometry.js';
 import { feasibility, type Feasibility } from './feasibility.js';
+import { norm3 } from '../physics/norm3.js';
 
 /** An anchor point of a scaffold (nm) with its local frame on a helical lattice. */
 export interface Anchor {
@@ -77,7 +78,12 @@ export function designSpace(c: ConstraintSet): DesignSpace {
   const anchors = anchorsOf(c);
   const s: any = new SearchSpace<Point>();
   if (c.dyes.count.min < c.dyes.count.max) s.integer('count', c.dyes.count.min, c.dyes.count.max);
-  const fixed = (i: number) => c.fixed.find((f) => f.site === i);
+  // per site: its fixed entry and the names of its variables, looked up once (decode runs for every candidate)
+  const fixedOf = Array.from({ length: N }, (_, i) => c.fixed.find((f) => f.site === i));
+  const fixed = (i: number) => fixedOf[i];
+  const key = (name: string) => Array.from({ length: N }, (_, i) => `${name}_${i}`);
+  const paletteNames = c.palette.map((d) => d.name);
+  const K = { anchor: key('anchor'), offset: key('offset'), pos: key('pos'), dir: key('dir'), cos: key('cos'), phi: key('phi'), energy: key('energy'), dye: key('dye') };
   const rules: (EnergyRule | undefined)[] = [];
   for (let i = 0; i < N; i++) {
     const f = fixed(i);
@@ -106,15 +112,15 @@ export function designSpace(c: ConstraintSet): DesignSpace {
     const f = fixed(i);
     if (f?.position) return { position: v3(f.position) };
     if (anchors) {
-      const a = anchors[f?.anchor ?? (p[`anchor_${i}`] as number)];
+      const a = anchors[f?.anchor ?? (p[K.anchor[i]] as number)];
       const L = isAnchorScaffold(sc) ? sc.linker.length : 0;
       if (L === 0) return { position: a.position, anchor: a };
-      let o = p[`offset_${i}`] as number[];
-      const len = Math.hypot(o[0], o[1], o[2]);
+      let o = p[K.offset[i]] as number[];
+      const len = norm3(o[0], o[1], o[2]);
       if (len > 1) o = o.map((x) => x / len);
       return { position: [a.position[0] + L * o[0], a.position[1] + L * o[1], a.position[2] + L * o[2]], anchor: a };
     }
-    const u = p[`pos_${i}`] as number[];
+    const u = p[K.pos[i]] as number[];
     switch (sc.kind) {
       case 'box': return { position: [(u[0] - 0.5) * sc.size.x, (u[1] - 0.5) * sc.size.y, (u[2] - 0.5) * sc.size.z] };
       case 'slab': return { position: [(u[0] - 0.5) * sc.size.x, (u[1] - 0.5) * sc.size.y, (u[2] - 0.5) * sc.thickness] };
@@ -150,16 +156,16 @@ export function designSpace(c: ConstraintSet): DesignSpace {
       if (anchor) used.push(anchor);
       let dir: Vec3;
       if (f?.direction) dir = normalize(v3(f.direction));
-      else if (sc.dipole.kind === 'free') dir = p[`dir_${i}`] as Vec3;
-      else dir = coneDirection(coneAxis(sc.dipole, anchor), p[`cos_${i}`] as number, p[`phi_${i}`] as number);
+      else if (sc.dipole.kind === 'free') dir = p[K.dir[i]] as Vec3;
+      else dir = coneDirection(coneAxis(sc.dipole, anchor), p[K.cos[i]] as number, p[K.phi[i]] as number);
       const er = rules[i];
       let dye: Dye;
       let energy: number | undefined;
       if (f?.dye) dye = dyeByName(c, f.dye);
-      else if (er && 'range' in er) { dye = dyeByName(c, er.range.like); energy = p[`energy_${i}`] as number; }
+      else if (er && 'range' in er) { dye = dyeByName(c, er.range.like); energy = p[K.energy[i]] as number; }
       else {
-        const names = !er || er.dyes === 'all' ? c.palette.map((d) => d.name) : er.dyes;
-        dye = dyeByName(c, names.length > 1 ? (p[`dye_${i}`] as string) : names[0]);
+        const names = !er || er.dyes === 'all' ? paletteNames : er.dyes;
+        dye = dyeByName(c, names.length > 1 ? (p[K.dye[i]] as string) : names[0]);
       }
       sites.push(siteFromDye(dye, pos, dir, energy));
       dyes.push(dye.name);

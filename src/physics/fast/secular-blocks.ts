@@ -40,8 +40,15 @@ export interface SecularBlocks {
 const scratch = new Workspace();
 let sortW = new Float64Array(0);
 let sortPop = new Uint8Array(0);
-/** Bohr frequency, then populations first, then element index: a total order. */
-const byFrequency = (x: number, y: number) => sortW[x] - sortW[y] || sortPop[y] - sortPop[x] || x - y;
+/**
+ * Bohr frequency, then populations first, then element index: a total order. It returns small integers only
+ * (a difference of frequencies would be a fresh heap number on every comparison).
+ */
+const byFrequency = (x: number, y: number) => {
+  const a = sortW[x], b = sortW[y];
+  if (a !== b) return a < b ? -1 : 1;
+  return sortPop[y] - sortPop[x] || x - y;
+};
 
 export function secularBlocks(rates: RedfieldRates, kappa: number): SecularBlocks {
   const { n, energies: E, secular } = rates;
