@@ -7,14 +7,14 @@ import { InputError } from './errors.js';
 export function withDefaults<T extends object>(what: string, defaults: T, given: Partial<T> | undefined): T {
   if (given === undefined || given === null) return { ...defaults };
   if (typeof given !== 'object') throw new InputError(`${what}: options must be an object`);
-  const known = Object.keys(defaults);
-  for (const k of Object.keys(given)) {
-    if (!known.includes(k)) {
-      throw new InputError(`${what}: unknown option '${k}' (known: ${known.join(', ')})`);
-    }
-  }
   const out = { ...defaults } as Record<string, unknown>;
-  for (const [k, v] of Object.entries(given)) if (v !== undefined) out[k] = v;
+  // (runs on every transport evaluation: one pass, no key lists built unless a key is unknown)
+  for (const k in given) {
+    if (!Object.hasOwn(given, k)) continue;
+    if (!Object.hasOwn(defaults, k)) throw new InputError(`${what}: unknown option '${k}' (known: ${Object.keys(defaults).join(', ')})`);
+    const v = (given as Record<string, unknown>)[k];
+    if (v !== undefined) out[k] = v;
+  }
   return out as T;
 }
 

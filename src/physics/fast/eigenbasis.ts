@@ -119,21 +119,26 @@ export function siteDiagonalPair(e: Eigenbasis, y1: Float64Array, y2: Float64Arr
   }
 }
 
+let rowList = new Int32Array(0);
+
 /** Packed W diag(w) W^H = sum_m w_m q_m (N^3), four rows of u per pass over the output. */
 export function diagonalInEigenbasis(e: Eigenbasis, w: ArrayLike<number>, out: Float64Array): Float64Array {
   const { n, u } = e;
   const len = n * n;
   out.fill(0);
-  const rows: number[] = [];
-  for (let m = 0; m < n; m++) if (w[m] !== 0) rows.push(m);
+  // the rows with a non-zero weight (a start on one site has one), in a scratch list
+  if (rowList.length < n) rowList = new Int32Array(2 * n);
+  const rows = rowList;
+  let count = 0;
+  for (let m = 0; m < n; m++) if (w[m] !== 0) rows[count++] = m;
   let t = 0;
-  for (; t + 3 < rows.length; t += 4) {
+  for (; t + 3 < count; t += 4) {
     const m0 = rows[t], m1 = rows[t + 1], m2 = rows[t + 2], m3 = rows[t + 3];
     const c0 = w[m0], c1 = w[m1], c2 = w[m2], c3 = w[m3];
     const o0 = m0 * len, o1 = m1 * len, o2 = m2 * len, o3 = m3 * len;
     for (let i = 0; i < len; i++) out[i] += c0 * u[o0 + i] + c1 * u[o1 + i] + c2 * u[o2 + i] + c3 * u[o3 + i];
   }
-  for (; t < rows.length; t++) {
+  for (; t < count; t++) {
     const c = w[rows[t]], o = rows[t] * len;
     for (let i = 0; i < len; i++) out[i] += c * u[o + i];
   }

@@ -58,14 +58,24 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
     }
     if (!normalizeColumnBilinear(yr, yi, n, k, 1e-10)) throw new NumericalError(`rank-one eigen-solver: eigenvector ${k + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
   }
-  // V = U Y = W^T Y
-  const Vr = scratch(ws, 'r1.vr', n * n), Vi = scratch(ws, 'r1.vi', n * n);
-  for (let j = 0; j < n; j++) {
-    const rj = j * n;
-    for (let i = 0; i < n; i++) {
-      const u = W[rj + i], ri = i * n;
-      if (u === 0) continue;
-      for (let c = 0; c < n; c++) { Vr[ri + c] += u * yr[rj + c]; Vi[ri + c] += u * yi[rj + c]; }
+  // V = U Y = W^T Y, as dot products over j (two columns at a time, sums kept in registers: no stores in the loop)
+  const Vr = ws ? ws.take('r1.vr', n * n) : new Float64Array(n * n), Vi = ws ? ws.take('r1.vi', n * n) : new Float64Array(n * n);
+  for (let i = 0; i < n; i++) {
+    const ri = i * n;
+    let c = 0;
+    for (; c + 1 < n; c += 2) {
+      let r0 = 0, i0 = 0, r1 = 0, i1 = 0;
+      for (let j = 0, rj = 0; j < n; j++, rj += n) {
+        const u = W[rj + i];
+        r0 += u * yr[rj + c]; i0 += u * yi[rj + c];
+        r1 += u * yr[rj + c + 1]; i1 += u * yi[rj + c + 1];
+      }
+      Vr[ri + c] = r0; Vi[ri + c] = i0; Vr[ri + c + 1] = r1; Vi[ri + c + 1] = i1;
+    }
+    if (c < n) {
+      let r0 = 0, i0 = 0;
+      for (let j = 0, rj = 0; j < n; j++, rj += n) { const u = W[rj + i]; r0 += u * yr[rj + c]; i0 += u * yi[rj + c]; }
+      Vr[ri + c] = r0; Vi[ri + c] = i0;
     }
   }
   return { n, valuesRe, valuesIm, vectors: { n, re: Vr, im: Vi } };
