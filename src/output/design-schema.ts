@@ -1,8 +1,14 @@
-/** The JSON Schema of lumenfold.design/1 (designs/design.schema.json), compiled once, with readable errors. */
+/** The JSON Schema of lumenfold.design/1 (designs/design.schema.json), precompiled or compiled once, with readable errors. */
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
-import { Ajv2020, type ErrorObject, type ValidateFunction } from 'ajv/dist/2020.js';
+import type { ErrorObject, ValidateFunction } from 'ajv';
 import { pointerToken, type DesignIssue } from './design-error.js';
+import * as generated from './design-validator.generated.js';
+
+// ajv itself (with its URI library) is loaded only when the schema has to be compiled at run time.
+const require = createRequire(import.meta.url);
 
 export const DESIGN_FORMAT = 'lumenfold.design/1';
 
@@ -14,13 +20,42 @@ export function designSchema(): Record<string, unknown> {
   return JSON.parse(readFileSync(DESIGN_SCHEMA_PATH, 'utf8')) as Record<string, unknown>;
 }
 
-/** Compile the schema in ajv's strict mode (strictNumbers refuses NaN and Infinity); allErrors reports every problem. */
+/**
+ * ajv's options here and in the precompiled validator (tools/build-validators.mjs): strict mode, strictNumbers
+ * (refuses NaN and Infinity), allErrors (report every problem), verbose (errors carry schema and data, for our messages).
+ */
+export const DESIGN_AJV_OPTIONS = { strict: true, strictNumbers: true, allErrors: true, verbose: true } as const;
+
+/** Compile the schema now with ajv (the fallback when the precompiled validator is stale). */
 export function compileDesignSchema(): ValidateFunction {
-  const ajv = new Ajv2020({ strict: true, strictNumbers: true, allErrors: true, verbose: true });
+  const ajv = new (require('ajv/dist/2020.js') as typeof import('ajv/dist/2020.js')).Ajv2020({ ...DESIGN_AJV_OPTIONS });
   return ajv.compile(designSchema());
 }
 
-let compiled: ValidateFunction | undefined;
+/**
+ * sha256 of ajv's version, DESIGN_AJV_OPTIONS and the shipped schema (parsed, so white space does not count), as
+ * tools/build-validators.mjs computes it: the precompiled validator is used only while its hash is this one.
+ */
+export function designSchemaHash(): string {
+  const ajvVersion = (require('ajv/package.json') as { version: string }).version;
+  const text = `ajv ${ajvVersion}\n${JSON.stringify(DESIGN_AJV_OPTIONS)}\ndesign.schema.json\n${JSON.stringify(designSchema())}\n`;
+  return createHash('sha256').update(text).digest('hex');
+}
+
+/** A validator: true when the document is valid, else false with `errors` set. */
+export type DesignValidator = ((doc: unknown) => boolean) & { errors?: ErrorObject[] | null };
+
+/** The validator of tools/build-validators.mjs, or undefined when it was not made from the shipped schema. */
+export function precompiledDesignValidator(): DesignValidator | undefined {
+  return generated.SCHEMA_HASH === designSchemaHash() ? (generated.design as DesignValidator) : undefined;
+}
+
+let compiled: DesignValidator | undefined;
+
+/** The validator in use: the precompiled one when it is current, else the schema compiled once per process. */
+export function designValidator(): DesignValidator {
+  return (compiled ??= precompiledDesignValidator() ?? compileDesignSchema());
+}
 
 function shown(v: unknown): string {
   if (typeof v === 'string') return JSON.stringify(v.length > 40 ? `${v.slice(0, 40)}...` : v);
@@ -75,11 +110,11 @@ function withSiteId(path: string, message: string): string {
 
 /** Check a parsed document against the schema; every problem as an issue (empty when valid). */
 export function schemaIssues(doc: unknown, file: string): DesignIssue[] {
-  compiled ??= compileDesignSchema();
-  if (compiled(doc)) return [];
+  const validate = designValidator();
+  if (validate(doc)) return [];
   const seen = new Set<string>();
   const out: DesignIssue[] = [];
-  for (const e of compiled.errors ?? []) {
+  for (const e of validate.errors ?? []) {
     const { path, message } = explain(e);
     const key = `${path} ${message}`;
     if (seen.has(key)) continue;
