@@ -87,16 +87,23 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
   return { n, vectors, g, u, z, gapRatio: minGap / (maxLam + gamma) };
 }
 
-/** [V Y V^H]_kk for every k: u Y (N^3), two rows of u per pass over Y. */
+/** [V Y V^H]_kk for every k: u Y (N^3), four rows of u per pass over Y (then two, then one). */
 export function siteDiagonal(e: Eigenbasis, y: Float64Array, out: Float64Array): Float64Array {
   const { n, u } = e;
   const len = n * n;
   let k = 0;
-  for (; k + 1 < n; k += 2) {
+  for (; k + 3 < n; k += 4) {
+    const o0 = k * len, o1 = o0 + len, o2 = o1 + len, o3 = o2 + len;
+    let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+    for (let i = 0; i < len; i++) { const b = y[i]; s0 += u[o0 + i] * b; s1 += u[o1 + i] * b; s2 += u[o2 + i] * b; s3 += u[o3 + i] * b; }
+    out[k] = s0; out[k + 1] = s1; out[k + 2] = s2; out[k + 3] = s3;
+  }
+  if (k + 1 < n) {
     const o0 = k * len, o1 = o0 + len;
     let s0 = 0, s1 = 0;
     for (let i = 0; i < len; i++) { const b = y[i]; s0 += u[o0 + i] * b; s1 += u[o1 + i] * b; }
     out[k] = s0; out[k + 1] = s1;
+    k += 2;
   }
   if (k < n) {
     const o0 = k * len;
@@ -107,11 +114,21 @@ export function siteDiagonal(e: Eigenbasis, y: Float64Array, out: Float64Array):
   return out;
 }
 
-/** siteDiagonal of two packed matrices in one pass over u. */
+/** siteDiagonal of two packed matrices in one pass over u, two rows of u at a time. */
 export function siteDiagonalPair(e: Eigenbasis, y1: Float64Array, y2: Float64Array, out1: Float64Array, out2: Float64Array): void {
   const { n, u } = e;
   const len = n * n;
-  for (let k = 0; k < n; k++) {
+  let k = 0;
+  for (; k + 1 < n; k += 2) {
+    const o = k * len, p = o + len;
+    let a1 = 0, a2 = 0, b1 = 0, b2 = 0;
+    for (let i = 0; i < len; i++) {
+      const x1 = y1[i], x2 = y2[i], ua = u[o + i], ub = u[p + i];
+      a1 += ua * x1; a2 += ua * x2; b1 += ub * x1; b2 += ub * x2;
+    }
+    out1[k] = a1; out2[k] = a2; out1[k + 1] = b1; out2[k + 1] = b2;
+  }
+  if (k < n) {
     const o = k * len;
     let s1 = 0, s2 = 0;
     for (let i = 0; i < len; i++) { const a = u[o + i]; s1 += a * y1[i]; s2 += a * y2[i]; }
