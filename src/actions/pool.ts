@@ -108,8 +108,8 @@ function takeWorkers(count: number): PoolWorker[] {
  * do not depend on the number of threads or on which took which task.
  * Between batches a worker sleeps in Atomics.wait on its signal word and reads its orders with
  * receiveMessageOnPort, so that no batch waits for a turn of its event loop. (Polling shared memory for a
- * few ms before sleeping, on either side, was tried: it gained nothing measurable on an idle machine and
- * slowed runs badly on a loaded one, where the polling thread takes the core from one that computes.)
+ * few ms before sleeping, on either side, was tried: it gained nothing measurable here, and on a busy machine
+ * a polling thread takes the core from one that computes.)
  */
 export class EvaluationPool {
   private readonly workers: PoolWorker[];
