@@ -1,9 +1,9 @@
-import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
 import type { ErrorObject } from 'ajv';
 import type { Ajv2020 } from 'ajv/dist/2020.js';
+import { validatorHash } from '../validator-hash.js';
 import * as generated from './validators.generated.js';
 
 // ajv itself (about 70 ms to load) is loaded only when a schema has to be compiled at run time.
@@ -67,12 +67,7 @@ export function createAjv(): Ajv2020 {
  * precompiled validators are used only while the hash they were generated with is this one.
  */
 export function schemaHash(): string {
-  const hash = createHash('sha256');
-  hash.update(`ajv ${(require('ajv/package.json') as { version: string }).version}\n${JSON.stringify(AJV_OPTIONS)}\n`);
-  for (const name of (Object.keys(SCHEMA_FILES) as (keyof typeof SCHEMA_FILES)[]).sort()) {
-    hash.update(`${name}\n${JSON.stringify(readSchema(name))}\n`);
-  }
-  return hash.digest('hex');
+  return validatorHash(AJV_OPTIONS, (Object.keys(SCHEMA_FILES) as (keyof typeof SCHEMA_FILES)[]).sort().map((name) => [name, readSchema(name)] as const));
 }
 
 /** A validator: true when the data is valid (filling in defaults, in place), else false with `errors` set. */

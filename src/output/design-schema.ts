@@ -1,10 +1,10 @@
 /** The JSON Schema of lumenfold.design/1 (designs/design.schema.json), precompiled or compiled once, with readable errors. */
-import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
 import type { ErrorObject, ValidateFunction } from 'ajv';
 import { pointerToken, type DesignIssue } from './design-error.js';
+import { validatorHash } from '../validator-hash.js';
 import * as generated from './design-validator.generated.js';
 
 // ajv itself (with its URI library) is loaded only when the schema has to be compiled at run time.
@@ -37,9 +37,7 @@ export function compileDesignSchema(): ValidateFunction {
  * tools/build-validators.mjs computes it: the precompiled validator is used only while its hash is this one.
  */
 export function designSchemaHash(): string {
-  const ajvVersion = (require('ajv/package.json') as { version: string }).version;
-  const text = `ajv ${ajvVersion}\n${JSON.stringify(DESIGN_AJV_OPTIONS)}\ndesign.schema.json\n${JSON.stringify(designSchema())}\n`;
-  return createHash('sha256').update(text).digest('hex');
+  return validatorHash(DESIGN_AJV_OPTIONS, [['design.schema.json', designSchema()]]);
 }
 
 /** A validator: true when the document is valid, else false with `errors` set. */
