@@ -131,7 +131,7 @@ export class EvaluationPool {
         this.pending.clear();
       };
       if (w.failure) this.failure = w.failure;
-      this.order(w, { job: { constraints, objective } });
+      orderWorker(w, { job: { constraints, objective } });
     }
   }
 
@@ -139,10 +139,6 @@ export class EvaluationPool {
     const done = this.pending.get(m.id);
     this.pending.delete(m.id);
     done?.(m);
-  }
-
-  private order(w: PoolWorker, m: WorkerOrder): void {
-    orderWorker(w, m);
   }
 
   /**
@@ -184,7 +180,7 @@ export class EvaluationPool {
     const ids = this.workers.map(() => this.next++);
     const waiting = this.workers.map((w, i) => new Promise<BatchReply>((resolve) => {
       this.pending.set(ids[i], resolve);
-      this.order(w, message(ids[i], 1 + P + i));
+      orderWorker(w, message(ids[i], 1 + P + i));
     }));
     const own = runTasks(this.parts, message(-1, -1));
     const replies = [own];
@@ -202,7 +198,7 @@ export class EvaluationPool {
 
   async close(): Promise<void> {
     for (const w of this.workers) {
-      this.order(w, { stop: true });
+      orderWorker(w, { stop: true });
       w.batches.close();
       w.replies.close();
     }
