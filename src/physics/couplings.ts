@@ -60,7 +60,7 @@ export interface DipoleSpec {
   readonly length?: number;
 }
 
-/** |b - a|, as separation computes it. */
+/** |b - a|. */
 function distance(a: Vec3, b: Vec3): number {
   return norm3(b[0] - a[0], b[1] - a[1], b[2] - a[2]);
 }
@@ -71,9 +71,7 @@ export function pointDipoleCoupling(m: DipoleSpec, n: DipoleSpec, screening: Scr
   const dx = b[0] - a[0], dy = b[1] - a[1], dz = b[2] - a[2];
   const R = norm3(dx, dy, dz);
   if (!(R > 0)) throw new InputError('two dyes sit at the same position; the coupling is undefined');
-  // orientationFactor with r = d / R, without building r
-  const u = m.direction, v = n.direction;
-  const kappa = dot(u, v) - (3 * ((u[0] * dx + u[1] * dy + u[2] * dz) / R) * ((v[0] * dx + v[1] * dy + v[2] * dz) / R));
+  const kappa = orientationFactor(m.direction, n.direction, [dx / R, dy / R, dz / R]);
   return (DIPOLE_PREFACTOR_CM * screeningFactor(screening, R) * kappa * m.dipole * n.dipole) / (R * R * R);
 }
 

@@ -87,23 +87,23 @@ export function designSpace(c: ConstraintSet): DesignSpace {
   const rules: (EnergyRule | undefined)[] = [];
   for (let i = 0; i < N; i++) {
     const f = fixed(i);
-    if (anchors && f?.position === undefined && f?.anchor === undefined) s.integer(`anchor_${i}`, 0, anchors.length - 1);
+    if (anchors && f?.position === undefined && f?.anchor === undefined) s.integer(K.anchor[i], 0, anchors.length - 1);
     const linker = isAnchorScaffold(sc) ? sc.linker.length : 0;
-    if (anchors && linker > 0 && f?.position === undefined) s.reals(`offset_${i}`, 3, -1, 1);
-    if (!anchors && f?.position === undefined) s.reals(`pos_${i}`, 3, 0, 1);
+    if (anchors && linker > 0 && f?.position === undefined) s.reals(K.offset[i], 3, -1, 1);
+    if (!anchors && f?.position === undefined) s.reals(K.pos[i], 3, 0, 1);
     const rule = sc.dipole;
     if (f?.direction === undefined) {
-      if (rule.kind === 'free') s.unitVector(`dir_${i}`);
-      else { s.real(`cos_${i}`, Math.cos(degToRad(rule.half_angle)), 1); s.real(`phi_${i}`, 0, 2 * Math.PI); }
+      if (rule.kind === 'free') s.unitVector(K.dir[i]);
+      else { s.real(K.cos[i], Math.cos(degToRad(rule.half_angle)), 1); s.real(K.phi[i], 0, 2 * Math.PI); }
     }
     const er = c.energetics.rules.find((r) => selects(r.sites, i, traps));
     rules.push(er);
     if (f?.dye === undefined) {
       if (!er) throw new InputError(`constraints: no energetics rule covers site ${i}`);
-      if ('range' in er) s.real(`energy_${i}`, er.range.min, er.range.max);
+      if ('range' in er) s.real(K.energy[i], er.range.min, er.range.max);
       else {
         const names = er.dyes === 'all' ? c.palette.map((d) => d.name) : er.dyes;
-        if (names.length > 1) s.choice(`dye_${i}`, names);
+        if (names.length > 1) s.choice(K.dye[i], names);
       }
     }
   }
