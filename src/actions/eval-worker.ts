@@ -3,6 +3,7 @@
 // when told to.
 import { type MessagePort, receiveMessageOnPort, workerData } from 'node:worker_threads';
 import { makeEvaluatorParts } from './evaluator.js';
+import { unpackPoints } from './point-pack.js';
 import { runTasks, type WorkerOrder } from './pool.js';
 
 const { batches, replies, signal } = workerData as { batches: MessagePort; replies: MessagePort; signal: Int32Array };
@@ -27,7 +28,7 @@ function serve(): void {
       parts = makeEvaluatorParts(m.job.constraints, m.job.objective);
       continue;
     }
-    replies.postMessage(runTasks(parts!, m));
+    replies.postMessage(runTasks(parts!, m, unpackPoints(m.points)));
     // the reply is on the port: wake the main thread if it is blocked waiting for it
     const ctl = new Int32Array(m.control);
     Atomics.store(ctl, m.done, 1);

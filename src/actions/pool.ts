@@ -2,16 +2,18 @@ import { MessageChannel, type MessagePort, receiveMessageOnPort, Worker } from '
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import { makeEvaluatorParts, type EnsemblePart, type Evaluation, type NominalPart } from './evaluator.js';
+import { packPoints, type PackedPoints } from './point-pack.js';
 import { batchTasks, type TaskTable } from './tasks.js';
 
 type Parts = ReturnType<typeof makeEvaluatorParts>;
 
 /**
- * A batch as every thread receives it. `control` is shared: entry 0 counts the tasks taken, entry 1 + j is set
+ * A batch as a worker receives it: the points packed (point-pack.ts), the rest as the main thread's own share of
+ * the work sees it. `control` is shared: entry 0 counts the tasks taken, entry 1 + j is set
  * when point j's nominal evaluation failed. `tasks` is the batch's task table (tasks.ts). `done` is the entry the
  * worker sets (and notifies) once its reply is posted.
  */
-export interface BatchMessage { id: number; points: Record<string, unknown>[]; tasks: Int32Array; control: SharedArrayBuffer; done: number }
+export interface BatchMessage { id: number; points: PackedPoints; tasks: Int32Array; control: SharedArrayBuffer; done: number }
 /** What a worker finds on its batch port: the job it scores (first), a batch, or the order to stop. */
 export type WorkerOrder = { job: { constraints: ConstraintSet; objective: Objective } } | BatchMessage | { stop: true };
 /** How long the main thread blocks for a worker's reply before it waits on the event loop instead, ms. */
@@ -20,13 +22,13 @@ const BLOCK_MS = 200;
 /** What one thread computed: nominal parts by point, ensemble chunks by task index. */
 export interface BatchReply { id: number; nominal: [number, NominalPart][]; samples: [number, EnsemblePart][] }
 
-/** Take tasks of a batch from its shared counter until none is left (on any thread). */
-export function runTasks(parts: Parts, m: BatchMessage): BatchReply {
+/** Take tasks of a batch of `points` from its shared counter until none is left (on any thread). */
+export function runTasks(parts: Parts, m: Omit<BatchMessage, 'points'>, points: Record<string, unknown>[]): BatchReply {
   const ctl = new Int32Array(m.control);
   const { tasks } = m;
   const total = tasks.length / 3;
   const designs: ReturnType<Parts['design']>[] = [];
-  const designOf = (j: number) => (designs[j] ??= parts.design(m.points[j]));
+  const designOf = (j: number) => (designs[j] ??= parts.design(points[j]));
   const reply: BatchReply = { id: m.id, nominal: [], samples: [] };
   for (let task = Atomics.add(ctl, 0, 1); task < total; task = Atomics.add(ctl, 0, 1)) {
     const j = tasks[3 * task], from = tasks[3 * task + 1], to = tasks[3 * task + 2];
@@ -176,13 +178,14 @@ export class EvaluationPool {
     // entries: the task counter, one failure flag per point, one reply flag per worker
     const control = new SharedArrayBuffer(4 * (1 + P + k));
     const ctl = new Int32Array(control);
-    const message = (id: number, done: number): BatchMessage => ({ id, points, tasks: table.tasks, control, done });
+    const packed = k > 0 ? packPoints(points) : { records: points };
+    const message = (id: number, done: number): BatchMessage => ({ id, points: packed, tasks: table.tasks, control, done });
     const ids = this.workers.map(() => this.next++);
     const waiting = this.workers.map((w, i) => new Promise<BatchReply>((resolve) => {
       this.pending.set(ids[i], resolve);
       orderWorker(w, message(ids[i], 1 + P + i));
     }));
-    const own = runTasks(this.parts, message(-1, -1));
+    const own = runTasks(this.parts, message(-1, -1), points);
     const replies = [own];
     for (let i = 0; i < k; i++) replies.push(await this.replyOf(i, ids[i], ctl, 1 + P + i, waiting[i]));
     if (this.failure) throw this.failure;

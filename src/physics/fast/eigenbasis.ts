@@ -1,6 +1,6 @@
 import type { ComplexMatrix } from '../linalg/complex-dense.js';
 import { cabs } from '../linalg/complex-scalar.js';
-import { scratch, type Workspace } from '../linalg/workspace.js';
+import { fresh, scratch, type Workspace } from '../linalg/workspace.js';
 
 /**
  * The eigenbasis of A0 = -i H - K/2 = V Lambda0 V^-1 with V^-1 = V^T (A0 is complex symmetric), and the
@@ -38,7 +38,8 @@ export interface Eigenbasis {
 export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vectors: ComplexMatrix, gamma: number, ws?: Workspace): Eigenbasis {
   const { n, re: vr, im: vi } = vectors;
   const len = n * n;
-  const g = scratch(ws, 'eb.g', len), f = scratch(ws, 'eb.f', len);
+  // every entry of g, f, u and z is written below: no zeroing
+  const g = fresh(ws, 'eb.g', len), f = fresh(ws, 'eb.f', len);
   let minGap = Infinity, maxLam = 0;
   for (let i = 0; i < n; i++) {
     maxLam = Math.max(maxLam, cabs(valuesRe[i], valuesIm[i]));
@@ -61,7 +62,7 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
       f[p] = sr * gr - si * gi; f[p + 1] = sr * gi + si * gr;
     }
   }
-  const u = scratch(ws, 'eb.u', n * len), z = scratch(ws, 'eb.z', n * len);
+  const u = fresh(ws, 'eb.u', n * len), z = fresh(ws, 'eb.z', n * len);
   for (let k = 0; k < n; k++) {
     const rk = k * n, o = k * len;
     for (let i = 0; i < n; i++) {

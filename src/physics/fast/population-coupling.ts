@@ -1,4 +1,4 @@
-import { scratch, type Workspace } from '../linalg/workspace.js';
+import { fresh, type Workspace } from '../linalg/workspace.js';
 import type { Eigenbasis } from './eigenbasis.js';
 
 /**
@@ -10,7 +10,7 @@ import type { Eigenbasis } from './eigenbasis.js';
 export function populationCoupling(e: Eigenbasis, ws?: Workspace): Float64Array {
   const { n, u, z } = e;
   const len = n * n;
-  const M = scratch(ws, 'pc.m', n * n);
+  const M = fresh(ws, 'pc.m', n * n); // every entry is written below
   // rows k..k+3 of u against rows m, m+1 of z, for m + 1 <= k + 3 (blocks reaching the lower triangle)
   let k = 0;
   for (; k + 3 < n; k += 4) {

@@ -3,7 +3,7 @@ import type { ComplexEigen } from './complex-eigen.js';
 import { normalizeColumnBilinear } from './complex-dense.js';
 import { cabs } from './complex-scalar.js';
 import { symmetricEigenRows } from './symmetric-eigen.js';
-import { scratch, type Workspace } from './workspace.js';
+import { fresh, scratch, type Workspace } from './workspace.js';
 
 const EPS = Number.EPSILON;
 const MAX_NEWTON = 30;
@@ -26,7 +26,8 @@ const MAX_NEWTON = 30;
  */
 export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rhoRe: number, rhoIm: number, ws?: Workspace): ComplexEigen {
   // W = U^T: row j is eigenvector j of B
-  const W = scratch(ws, 'r1.u', n * n), d = scratch(ws, 'r1.d', n), w = scratch(ws, 'r1.w', n);
+  // symmetricEigenRows writes every entry of W, d and w
+  const W = fresh(ws, 'r1.u', n * n), d = fresh(ws, 'r1.d', n), w = fresh(ws, 'r1.w', n);
   symmetricEigenRows(b, n, W, d, w);
   for (let j = 0; j < n; j++) w[j] = W[j * n + t];
   let big = 0;

@@ -58,3 +58,8 @@ export class Workspace {
 export function scratch(ws: Workspace | undefined, name: string, length: number): Float64Array {
   return ws ? ws.zeros(name, length) : new Float64Array(length);
 }
+
+/** Like scratch, but not zeroed: for arrays the caller writes in full before reading. */
+export function fresh(ws: Workspace | undefined, name: string, length: number): Float64Array {
+  return ws ? ws.take(name, length) : new Float64Array(length);
+}
