@@ -103,6 +103,10 @@ function excitonMixture(e: Excitons, w: Float64Array, rho: Float64Array): Float6
  * connected by non-zero couplings (or rates) that holds initial population but neither a trap nor a loss.
  */
 export function checkExcitationCanLeave(n: number, connected: (i: number, j: number) => boolean, rho0: Float64Array, sinkRate: Float64Array): void {
+  // every site loses population (a loss common to all sites, the usual case): every component can leave
+  let all = true;
+  for (let m = 0; m < n && all; m++) all = sinkRate[m] > 0;
+  if (all) return;
   const comp = new Int32Array(n).fill(-1);
   const stack = new Int32Array(n);
   let c = 0;
