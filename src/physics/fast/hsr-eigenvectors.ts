@@ -4,7 +4,7 @@ import { complexEigen } from '../linalg/complex-eigen.js';
 import { complexSymmetricEigen } from '../linalg/complex-symmetric-eigen.js';
 import { rankOneSymmetricEigen } from '../linalg/rank-one-eigen.js';
 import { cabs } from '../linalg/complex-scalar.js';
-import type { Workspace } from '../linalg/workspace.js';
+import { scratch, type Workspace } from '../linalg/workspace.js';
 
 export interface HsrEigen {
   readonly valuesRe: Float64Array;
@@ -36,7 +36,7 @@ export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number, ws?: Wor
     try {
       const e = rankOneSymmetricEigen(s.re, s.n, one.site, 0, one.rhoIm, ws);
       for (let i = 0; i < s.n; i++) e.valuesIm[i] += one.sigma;
-      const condition = conditionOf(e.vectors);
+      const condition = conditionOf(e.vectors, ws);
       if (condition <= maxCondition) return { valuesRe: e.valuesRe, valuesIm: e.valuesIm, vectors: e.vectors, condition, solver: 'rank-one' };
       reasons.push(`rank-one eigenvectors ill-conditioned (cond ${condition.toExponential(1)})`);
     } catch (err) {
@@ -46,7 +46,7 @@ export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number, ws?: Wor
   }
   try {
     const e = complexSymmetricEigen(s, ws);
-    const condition = conditionOf(e.vectors);
+    const condition = conditionOf(e.vectors, ws);
     if (condition <= maxCondition) return { valuesRe: e.valuesRe, valuesIm: e.valuesIm, vectors: e.vectors, condition, solver: 'complex-symmetric' };
     reasons.push(`complex symmetric eigenvectors ill-conditioned (cond ${condition.toExponential(1)})`);
   } catch (err) {
@@ -59,7 +59,7 @@ export function hsrEigenvectors(s: ComplexMatrix, maxCondition: number, ws?: Wor
     if (failure) {
       reasons.push(`unitary QR eigenvectors: ${failure}`);
     } else {
-      const condition = conditionOf(e.vectors);
+      const condition = conditionOf(e.vectors, ws);
       if (condition <= maxCondition) return { valuesRe: e.valuesRe, valuesIm: e.valuesIm, vectors: e.vectors, condition, solver: 'unitary-qr' };
       reasons.push(`unitary QR eigenvectors ill-conditioned (cond ${condition.toExponential(1)}): the exciton Hamiltonian with its trap and loss is close to an exceptional point`);
     }
@@ -91,9 +91,9 @@ function rankOneShape(s: ComplexMatrix): { site: number; sigma: number; rhoIm: n
 }
 
 /** ||V||_1 ||V||_inf, which is cond_1(V) when V^-1 = V^T. */
-function conditionOf(v: ComplexMatrix): number {
+function conditionOf(v: ComplexMatrix, ws?: Workspace): number {
   const { n, re, im } = v;
-  const col = new Float64Array(n);
+  const col = scratch(ws, 'cond.col', n);
   let rowMax = 0;
   for (let i = 0; i < n; i++) {
     let row = 0;

@@ -1,5 +1,5 @@
 import { CM_TO_RAD_PER_PS } from '../constants.js';
-import { luFactor, luSolve } from '../linalg/lu.js';
+import { luFactor, luSolveInPlace } from '../linalg/lu.js';
 import { Workspace } from '../linalg/workspace.js';
 import { diagonalInEigenbasis, type Eigenbasis, eigenbasis, multiplyByG, siteDiagonal, siteDiagonalPair, symmetricInEigenbasis } from './eigenbasis.js';
 import { hsrEigenvectors } from './hsr-eigenvectors.js';
@@ -69,52 +69,54 @@ export function structuredHsr(p: HsrProblem): StructuredHsrResult {
   const ws = WORK;
   const { n, dephasing: gamma } = p;
   const len = n * n;
+  const a = ws.frame('hsr', n, hsrArrays);
   // K (loss + trap) is kept apart from K + gamma: recovering a 1e-3 loss from 1e4 + 1e-3 would cost 8 digits
-  const k = ws.take('hsr.k', n), decay = ws.take('hsr.decay', n);
+  const { k, decay } = a;
   for (let m = 0; m < n; m++) { k[m] = p.lossRates[m] + p.trapRates[m]; decay[m] = k[m] + gamma; }
   // H in rad/ps with its mean diagonal taken out (a multiple of I cancels in L)
   let mean = 0;
   for (let m = 0; m < n; m++) mean += p.hamiltonian[m * n + m];
   mean /= n;
-  const h = ws.take('hsr.h', len);
+  const h = a.h;
   for (let i = 0; i < len; i++) h[i] = p.hamiltonian[i] * CM_TO_RAD_PER_PS;
   for (let m = 0; m < n; m++) h[m * n + m] -= mean * CM_TO_RAD_PER_PS;
   // S0 = H - i K/2 = i A0 (dephasing left out: it shifts A by -gamma/2 I and is added exactly in eigenbasis.ts)
-  const s = { n, re: ws.take('hsr.sr', len), im: ws.zeros('hsr.si', len) };
-  s.re.set(h);
+  // (the eigen-solvers do not modify their input: re can be h itself)
+  const s = { n, re: h, im: a.si };
+  for (let i = 0; i < len; i++) s.im[i] = 0;
   for (let m = 0; m < n; m++) s.im[m * n + m] = -0.5 * k[m];
   const eig = hsrEigenvectors(s, MAX_EIGENVECTOR_CONDITION, ws);
   if ('failure' in eig) unavailable(eig.failure);
   // lambda0 = -i mu
-  const lr = ws.take('hsr.lr', n), li = ws.take('hsr.li', n);
+  const { lr, li } = a;
   for (let i = 0; i < n; i++) { lr[i] = eig.valuesIm[i]; li[i] = -eig.valuesRe[i]; }
   const e = eigenbasis(lr, li, eig.vectors, gamma, ws);
   if (!(e.gapRatio > 1e-13)) unavailable(`the Lyapunov part is nearly singular (min |lambda_i + conj(lambda_j)| / max |lambda| = ${e.gapRatio.toExponential(2)})`);
   const F = populationCoupling(e, ws);
   let lu;
   try {
-    lu = luFactor(F, n, false);
+    lu = luFactor(F, n, false, a.pivots);
   } catch (err) {
     unavailable(`the population system I + gamma M is singular (${(err as Error).message})`);
   }
   // X = L^-1(b): d = (I + gamma M)^-1 diag(L0^-1 b), X = L0^-1(b - gamma diag(d)), all packed in the eigenbasis;
   // then Y = L^-1(-X) the same way. diag(X) and diag(L0^-1(-X)) share one pass over u.
-  const b = symmetricInEigenbasis(e, p.rho0, ws.take('hsr.b', len), ws);
+  const b = symmetricInEigenbasis(e, p.rho0, a.b, ws);
   for (let i = 0; i < len; i++) b[i] = -b[i];
-  const w = ws.take('hsr.w', len), u = ws.take('hsr.u', n);
+  const { w, u } = a;
   w.set(b);
   multiplyByG(e, w);
-  const dX = luSolve(lu, siteDiagonal(e, w, u));
-  const x = assemble(e, b, dX, gamma, ws.take('hsr.x', len));
-  const mx = ws.take('hsr.mx', len);
+  const dX = luSolveInPlace(lu, siteDiagonal(e, w, a.dx));
+  const x = assemble(e, b, dX, gamma, a.x);
+  const mx = a.mx;
   for (let i = 0; i < len; i++) mx[i] = -x[i];
   w.set(mx);
   multiplyByG(e, w);
-  const X = { packed: x, diagonal: ws.take('hsr.xd', n), predicted: dX };
+  const X = { packed: x, diagonal: a.xd, predicted: dX };
   siteDiagonalPair(e, x, w, X.diagonal, u);
-  const dY = luSolve(lu, u);
-  const y = assemble(e, mx, dY, gamma, ws.take('hsr.y', len));
-  const Y = { packed: y, diagonal: siteDiagonal(e, y, ws.take('hsr.yd', n)), predicted: dY };
+  const dY = luSolveInPlace(lu, u);
+  const y = assemble(e, mx, dY, gamma, a.y);
+  const Y = { packed: y, diagonal: siteDiagonal(e, y, a.yd), predicted: dY };
   checkConsistent('X', X.diagonal, X.predicted);
   checkConsistent('Y', Y.diagonal, Y.predicted);
   const op: ProbeOperator = { n, h, decay, gamma };
@@ -149,6 +151,15 @@ export function structuredHsr(p: HsrProblem): StructuredHsrResult {
     probeResidual: worst,
     eigenvectorCondition: eig.condition,
     eigenSolver: eig.solver,
+  };
+}
+
+/** The solver's own arrays for n sites (kept in WORK between calls of the same size). */
+function hsrArrays(n: number) {
+  const v = (): Float64Array => new Float64Array(n), m = (): Float64Array => new Float64Array(n * n);
+  return {
+    n, k: v(), decay: v(), h: m(), si: m(), lr: v(), li: v(), pivots: new Int32Array(n),
+    b: m(), w: m(), u: v(), dx: v(), x: m(), mx: m(), xd: v(), y: m(), yd: v(),
   };
 }
 

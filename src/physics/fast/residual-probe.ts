@@ -1,4 +1,4 @@
-import { scratch, type Workspace } from '../linalg/workspace.js';
+import { frameOf, type Workspace } from '../linalg/workspace.js';
 import type { Eigenbasis } from './eigenbasis.js';
 
 /** What a probe needs of the generator L(X) = A X + X A^H + gamma diag(X), A = -i H - K'/2. */
@@ -37,32 +37,38 @@ export interface ProbeImage {
 
 /**
  * Probe number `index` for an eigenbasis and operator, in O(N^2): z from an LCG with a fixed seed (runs are
- * reproducible). With a workspace, the next call reuses its arrays.
+ * reproducible). With a workspace, the next call reuses its arrays, and z itself is drawn once per size and index.
  */
 export function makeProbe(e: Eigenbasis, op: ProbeOperator, index: number, ws?: Workspace): Probe {
   const { n, h, decay } = op;
   const { re: vr, im: vi } = e.vectors;
-  const zr = scratch(ws, 'probe.zr', n), zi = scratch(ws, 'probe.zi', n), z2 = scratch(ws, 'probe.z2', n);
-  let s = (0x2545f491 + 977 * index) >>> 0;
-  for (let k = 0; k < n; k++) {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    zr[k] = s / 4294967296 - 0.5;
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    zi[k] = s / 4294967296 - 0.5;
-    z2[k] = zr[k] * zr[k] + zi[k] * zi[k];
-  }
-  // a = V^H z
-  const ar = scratch(ws, 'probe.ar', n), ai = scratch(ws, 'probe.ai', n);
-  for (let k = 0; k < n; k++) {
-    const rk = k * n, cr = zr[k], ci = zi[k];
-    for (let i = 0; i < n; i++) {
-      const pr = vr[rk + i], pi = -vi[rk + i];
-      ar[i] += pr * cr - pi * ci;
-      ai[i] += pr * ci + pi * cr;
+  const f = frameOf(ws, 'probe', n, probeArrays);
+  const { zr, zi, z2 } = f;
+  // z is drawn once per size and index (f.drawn is the index + 1 it holds, 0 before the first draw)
+  if (f.drawn !== index + 1) {
+    let s = (0x2545f491 + 977 * index) >>> 0;
+    for (let k = 0; k < n; k++) {
+      s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+      zr[k] = s / 4294967296 - 0.5;
+      s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+      zi[k] = s / 4294967296 - 0.5;
+      z2[k] = zr[k] * zr[k] + zi[k] * zi[k];
     }
+    f.drawn = index + 1;
+  }
+  // a = V^H z: a_i = sum_k conj(V_ki) z_k
+  const { ar, ai } = f;
+  for (let i = 0; i < n; i++) {
+    let sr = 0, si = 0;
+    for (let k = 0, rk = i; k < n; k++, rk += n) {
+      const pr = vr[rk], pi = vi[rk], cr = zr[k], ci = zi[k];
+      sr += pr * cr + pi * ci;
+      si += pr * ci - pi * cr;
+    }
+    ar[i] = sr; ai[i] = si;
   }
   // w = A^H z: (A^H z)_k = i (H z)_k - K'_k / 2 z_k
-  const wr = scratch(ws, 'probe.wr', n), wi = scratch(ws, 'probe.wi', n);
+  const { wr, wi } = f;
   let w2 = 0;
   for (let k = 0; k < n; k++) {
     let hr = 0, hi = 0;
@@ -75,13 +81,20 @@ export function makeProbe(e: Eigenbasis, op: ProbeOperator, index: number, ws?: 
   return { zr, zi, ar, ai, wr, wi, z2, wNorm: Math.sqrt(w2), gamma: op.gamma };
 }
 
+/** A probe's arrays for n sites, and the image arrays of probeImage (kept in the workspace when there is one). */
+function probeArrays(n: number) {
+  const v = (): Float64Array => new Float64Array(n);
+  return { n, drawn: 0, zr: v(), zi: v(), z2: v(), ar: v(), ai: v(), wr: v(), wi: v(), br: v(), bi: v(), xr: v(), xi: v() };
+}
+
 /** X z for X = V Y V^H with Y packed (eigenbasis.ts), in O(N^2). With a workspace, the next call reuses its arrays. */
 export function probeImage(e: Eigenbasis, probe: Probe, y: Float64Array, ws?: Workspace): ProbeImage {
   const { n } = e;
   const { re: vr, im: vi } = e.vectors;
   const { ar, ai, zr, zi } = probe;
   // b = Y a, Y Hermitian packed
-  const br = scratch(ws, 'probe.br', n), bi = scratch(ws, 'probe.bi', n);
+  const f = frameOf(ws, 'probe', n, probeArrays);
+  const { br, bi } = f;
   for (let i = 0; i < n; i++) { br[i] = y[i] * ar[i]; bi[i] = y[i] * ai[i]; }
   let p = n;
   for (let i = 0; i < n; i++) {
@@ -95,7 +108,7 @@ export function probeImage(e: Eigenbasis, probe: Probe, y: Float64Array, ws?: Wo
     }
   }
   // X z = V b
-  const xr = scratch(ws, 'probe.xr', n), xi = scratch(ws, 'probe.xi', n);
+  const { xr, xi } = f;
   let quadratic = 0;
   for (let k = 0; k < n; k++) {
     const rk = k * n;

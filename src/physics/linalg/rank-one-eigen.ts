@@ -3,7 +3,7 @@ import type { ComplexEigen } from './complex-eigen.js';
 import { normalizeColumnBilinear } from './complex-dense.js';
 import { cabs } from './complex-scalar.js';
 import { symmetricEigenRows } from './symmetric-eigen.js';
-import { fresh, scratch, type Workspace } from './workspace.js';
+import { frameOf, type Workspace } from './workspace.js';
 
 const EPS = Number.EPSILON;
 const MAX_NEWTON = 30;
@@ -27,7 +27,8 @@ const MAX_NEWTON = 30;
 export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rhoRe: number, rhoIm: number, ws?: Workspace): ComplexEigen {
   // W = U^T: row j is eigenvector j of B
   // symmetricEigenRows writes every entry of W, d and w
-  const W = fresh(ws, 'r1.u', n * n), d = fresh(ws, 'r1.d', n), w = fresh(ws, 'r1.w', n);
+  const buf = frameOf(ws, 'r1', n, rankOneArrays);
+  const { W, d, w } = buf;
   symmetricEigenRows(b, n, W, d, w);
   for (let j = 0; j < n; j++) w[j] = W[j * n + t];
   let big = 0;
@@ -37,13 +38,14 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
   const active = deflate(d, w, W, n, rho, tol);
   const m = active.length;
   // roots: tau_k, lambda_k = d_k + tau_k, for every active k
-  const tr = scratch(ws, 'r1.tr', n), ti = scratch(ws, 'r1.ti', n);
+  const { tr, ti } = buf;
+  for (let j = 0; j < n; j++) { tr[j] = 0; ti[j] = 0; }
   for (let a = 0; a < m; a++) newtonRoot(d, w, active, a, rhoRe, rhoIm, tr, ti);
   checkRoots(d, w, active, tr, ti, rhoRe, rhoIm, big + rho);
   // eigenvectors in U's basis: deflated columns are unit vectors, active ones (D - lambda)^-1 w scaled to y^T y = 1
-  const yr = scratch(ws, 'r1.yr', n * n), yi = scratch(ws, 'r1.yi', n * n);
-  const valuesRe = scratch(ws, 'r1.lr', n), valuesIm = scratch(ws, 'r1.li', n);
-  for (let j = 0; j < n; j++) { valuesRe[j] = d[j]; yr[j * n + j] = 1; }
+  const { yr, yi, valuesRe, valuesIm } = buf;
+  for (let j = 0; j < n * n; j++) { yr[j] = 0; yi[j] = 0; }
+  for (let j = 0; j < n; j++) { valuesRe[j] = d[j]; valuesIm[j] = 0; yr[j * n + j] = 1; }
   for (let a = 0; a < m; a++) {
     const k = active[a];
     yr[k * n + k] = 0;
@@ -53,14 +55,14 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
       const j = active[c];
       // w_j / ((d_j - d_k) - tau_k)
       const xr = d[j] - d[k] - tr[k], xi = -ti[k];
-      const den = xr * xr + xi * xi;
-      const vr = (w[j] * xr) / den, vi = (-w[j] * xi) / den;
+      const q = w[j] / (xr * xr + xi * xi);
+      const vr = q * xr, vi = -q * xi;
       yr[j * n + k] = vr; yi[j * n + k] = vi;
     }
     if (!normalizeColumnBilinear(yr, yi, n, k, 1e-10)) throw new NumericalError(`rank-one eigen-solver: eigenvector ${k + 1} of ${n} is nearly isotropic (y^T y = 0): the matrix is close to a defective one`, 'isotropic-eigenvector');
   }
   // V = U Y = W^T Y, as dot products over j (two columns at a time, sums kept in registers: no stores in the loop)
-  const Vr = ws ? ws.take('r1.vr', n * n) : new Float64Array(n * n), Vi = ws ? ws.take('r1.vi', n * n) : new Float64Array(n * n);
+  const { Vr, Vi } = buf;
   for (let i = 0; i < n; i++) {
     const ri = i * n;
     let c = 0;
@@ -80,6 +82,12 @@ export function rankOneSymmetricEigen(b: Float64Array, n: number, t: number, rho
     }
   }
   return { n, valuesRe, valuesIm, vectors: { n, re: Vr, im: Vi } };
+}
+
+/** The arrays of one solve of size n (kept in the workspace between calls of the same size when there is one). */
+function rankOneArrays(n: number) {
+  const v = (): Float64Array => new Float64Array(n), m = (): Float64Array => new Float64Array(n * n);
+  return { n, W: m(), d: v(), w: v(), tr: v(), ti: v(), yr: m(), yi: m(), valuesRe: v(), valuesIm: v(), Vr: m(), Vi: m() };
 }
 
 /**
@@ -135,8 +143,8 @@ function newtonRoot(d: Float64Array, w: Float64Array, active: number[], a: numbe
     for (let c = 0; c < m; c++) {
       if (c === a) continue;
       const j = active[c], delta = d[j] - d[k], q = w[j] * w[j];
-      const ar = delta - xr, ai = -xi, den = ar * ar + ai * ai;
-      const ir = ar / den, ii = -ai / den;
+      const ar = delta - xr, ai = -xi, inv = 1 / (ar * ar + ai * ai);
+      const ir = ar * inv, ii = -ai * inv;
       const fr = q * ir, fi = q * ii;
       sr += fr; si += fi;
       // q delta inv^2

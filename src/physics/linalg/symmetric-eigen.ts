@@ -52,8 +52,13 @@ export function symmetricEigenRows(a: Float64Array, n: number, W: Float64Array, 
   tql2(n, e, d, W);
 }
 
-/** sqrt(a^2 + b^2) without overflow, in the JAMA form. */
+/**
+ * sqrt(a^2 + b^2) without overflow or underflow: the plain formula where the sum of squares is safely inside
+ * the normal range (one square root, no division), else the scaled JAMA form.
+ */
 function hypotenuse(a: number, b: number): number {
+  const s = a * a + b * b;
+  if (s > 1e-290 && s < 1e290) return Math.sqrt(s);
   if (Math.abs(a) > Math.abs(b)) {
     const r = b / a;
     return Math.abs(a) * Math.sqrt(1 + r * r);
@@ -179,8 +184,10 @@ function tql2(n: number, e: Float64Array, d: Float64Array, W: Float64Array): voi
           h = c * p;
           r = hypotenuse(p, e[i]);
           e[i + 1] = s * r;
-          s = e[i] / r;
-          c = p / r;
+          // r > 0: e[i] is above the deflation threshold
+          const inv = 1 / r;
+          s = e[i] * inv;
+          c = p * inv;
           p = c * d[i] - s * g;
           d[i + 1] = h + s * (c * g + s * d[i]);
           const r0 = i * n, r1 = r0 + n;
