@@ -1,6 +1,6 @@
 import type { ComplexMatrix } from '../linalg/complex-dense.js';
 import { cabs } from '../linalg/complex-scalar.js';
-import { fresh, scratch, type Workspace } from '../linalg/workspace.js';
+import { frameOf, scratch, type Workspace } from '../linalg/workspace.js';
 
 /**
  * The eigenbasis of A0 = -i H - K/2 = V Lambda0 V^-1 with V^-1 = V^T (A0 is complex symmetric), and the
@@ -39,7 +39,8 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
   const { n, re: vr, im: vi } = vectors;
   const len = n * n;
   // every entry of g, f, u and z is written below: no zeroing
-  const g = fresh(ws, 'eb.g', len), f = fresh(ws, 'eb.f', len);
+  const tab = frameOf(ws, 'eb', n, eigenbasisArrays);
+  const { g, f } = tab;
   let minGap = Infinity, maxLam = 0;
   for (let i = 0; i < n; i++) {
     maxLam = Math.max(maxLam, cabs(valuesRe[i], valuesIm[i]));
@@ -62,7 +63,7 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
       f[p] = sr * gr - si * gi; f[p + 1] = sr * gi + si * gr;
     }
   }
-  const u = fresh(ws, 'eb.u', n * len), z = fresh(ws, 'eb.z', n * len);
+  const { u, z } = tab;
   for (let k = 0; k < n; k++) {
     const rk = k * n, o = k * len;
     for (let i = 0; i < n; i++) {
@@ -86,6 +87,12 @@ export function eigenbasis(valuesRe: Float64Array, valuesIm: Float64Array, vecto
     }
   }
   return { n, vectors, g, u, z, gapRatio: minGap / (maxLam + gamma) };
+}
+
+/** The tables of an eigenbasis of n sites (kept in the workspace between calls of the same size when there is one). */
+function eigenbasisArrays(n: number) {
+  const len = n * n;
+  return { n, g: new Float64Array(len), f: new Float64Array(len), u: new Float64Array(n * len), z: new Float64Array(n * len) };
 }
 
 /** [V Y V^H]_kk for every k: u Y (N^3), four rows of u per pass over Y (then two, then one). */
@@ -143,7 +150,8 @@ let rowList = new Int32Array(0);
 export function diagonalInEigenbasis(e: Eigenbasis, w: ArrayLike<number>, out: Float64Array): Float64Array {
   const { n, u } = e;
   const len = n * n;
-  out.fill(0);
+  // a plain loop: the fill builtin's call costs more than 49 stores
+  for (let i = 0; i < len; i++) out[i] = 0;
   // the rows with a non-zero weight (a start on one site has one), in a scratch list
   if (rowList.length < n) rowList = new Int32Array(2 * n);
   const rows = rowList;

@@ -36,14 +36,17 @@ export interface LinearModel {
   readonly checkCanLeave: () => void;
 }
 
-/** Per-site trap rate (ps^-1), zero off the traps. */
-export function trapRates(sys: ExcitonSystem, trapRate: number | readonly number[]): Float64Array {
-  const k = new Float64Array(sys.n);
-  sys.traps.forEach((t, i) => {
+/** Per-site trap rate (ps^-1), zero off the traps; into `out` (n entries, overwritten) when given. */
+export function trapRates(sys: ExcitonSystem, trapRate: number | readonly number[], out?: Float64Array): Float64Array {
+  const k = out ?? new Float64Array(sys.n);
+  if (out) for (let m = 0; m < sys.n; m++) k[m] = 0;
+  const { traps } = sys;
+  for (let i = 0; i < traps.length; i++) {
+    const t = traps[i];
     const r = typeof trapRate === 'number' ? trapRate : trapRate[i];
-    if (r === undefined) throw new InputError(`trap rate: one value per trap expected (${sys.traps.length}), got ${(trapRate as readonly number[]).length}`);
+    if (r === undefined) throw new InputError(`trap rate: one value per trap expected (${traps.length}), got ${(trapRate as readonly number[]).length}`);
     k[t] = requireNumber(`trap rate of site ${t + 1}`, r, 'nonnegative');
-  });
+  }
   return k;
 }
 

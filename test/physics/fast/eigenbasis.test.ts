@@ -85,9 +85,9 @@ describe('eigenbasis tables of the structured hsr solver (defining identities)',
     }
   });
 
-  it('I + gamma M matches M_km = [L0^-1(E_mm)]_kk from a dense Kronecker solve (I (x) A + conj(A) (x) I) vec X = vec E_mm', () => {
-    const n = 5;
-    const p = problem(900, n);
+  // n = 5..8: every shape of the last rows of populationCoupling's register blocks (n mod 4 = 1, 2, 3, 0)
+  it.each([5, 6, 7, 8])('I + gamma M matches M_km = [L0^-1(E_mm)]_kk from a dense Kronecker solve (I (x) A + conj(A) (x) I) vec X = vec E_mm, n = %i', (n) => {
+    const p = problem(900 + n, n);
     const F = populationCoupling(p.e);
     const N2 = n * n;
     const big = { n: N2, re: new Float64Array(N2 * N2), im: new Float64Array(N2 * N2) };
