@@ -1,6 +1,6 @@
-// Worker thread of pool.ts: sleeps on its signal word until an order is posted on its batch port. The first
-// order is the job; then it takes tasks of each batch from the shared counter until none is left, and stops
-// when told to.
+// Worker thread of pool.ts: sleeps on its signal word until an order is posted on its batch port. An order is
+// a job (the first, and again each time another pool takes the thread) or a batch, whose tasks it takes from
+// the shared counter until none is left. It runs until the process ends (threads.ts keeps it between pools).
 import { type MessagePort, receiveMessageOnPort, workerData } from 'node:worker_threads';
 import { makeEvaluatorParts } from './evaluator.js';
 import { unpackPoints } from './point-pack.js';
@@ -23,7 +23,6 @@ function serve(): void {
   let parts: ReturnType<typeof makeEvaluatorParts> | undefined;
   for (;;) {
     const m = nextOrder();
-    if ('stop' in m) break;
     if ('job' in m) {
       parts = makeEvaluatorParts(m.job.constraints, m.job.objective);
       continue;
@@ -34,8 +33,6 @@ function serve(): void {
     Atomics.store(ctl, m.done, 1);
     Atomics.notify(ctl, m.done);
   }
-  batches.close();
-  replies.close();
 }
 
 serve();

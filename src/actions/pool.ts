@@ -1,9 +1,12 @@
-import { MessageChannel, type MessagePort, receiveMessageOnPort, Worker } from 'node:worker_threads';
+import { receiveMessageOnPort } from 'node:worker_threads';
 import type { ConstraintSet } from '../config/constraints-types.js';
 import type { Objective } from '../config/objective-types.js';
 import { makeEvaluatorParts, type EnsemblePart, type Evaluation, type NominalPart } from './evaluator.js';
 import { packPoints, type PackedPoints } from './point-pack.js';
 import { batchTasks, type TaskTable } from './tasks.js';
+import { orderWorker, releaseWorkers, takeWorkers, type PoolWorker } from './threads.js';
+
+export { startWorkers } from './threads.js';
 
 type Parts = ReturnType<typeof makeEvaluatorParts>;
 
@@ -14,8 +17,13 @@ type Parts = ReturnType<typeof makeEvaluatorParts>;
  * worker sets (and notifies) once its reply is posted.
  */
 export interface BatchMessage { id: number; points: PackedPoints; tasks: Int32Array; control: SharedArrayBuffer; done: number }
-/** What a worker finds on its batch port: the job it scores (first), a batch, or the order to stop. */
-export type WorkerOrder = { job: { constraints: ConstraintSet; objective: Objective } } | BatchMessage | { stop: true };
+/** What a worker finds on its batch port: the job it scores (first, and again when another pool takes it), or a batch. */
+export type WorkerOrder = { job: { constraints: ConstraintSet; objective: Objective } } | BatchMessage;
+/**
+ * Batch numbers, unique in the process: a worker given back by a pool that failed mid-batch may still send that
+ * batch's reply, which the next pool must not take for one of its own.
+ */
+let nextBatch = 0;
 /** How long the main thread blocks for a worker's reply before it waits on the event loop instead, ms. */
 const BLOCK_MS = 200;
 
@@ -45,60 +53,6 @@ export function runTasks(parts: Parts, m: Omit<BatchMessage, 'points'>, points: 
   return reply;
 }
 
-interface PoolWorker {
-  worker: Worker;
-  /** Batches go out on this port; the worker reads it without its event loop. */
-  batches: MessagePort;
-  /** Replies come back on this one, which the main thread can read without the event loop. */
-  replies: MessagePort;
-  /** Entry 0 counts the orders posted to this worker; the worker sleeps on it between batches. */
-  signal: Int32Array;
-  /** Set when the thread failed (also before a pool took it); onFailure tells the pool that owns it. */
-  failure?: Error;
-  onFailure?: (e: Error) => void;
-}
-
-const spare: PoolWorker[] = [];
-
-/** Post an order on a worker's batch port and wake it. */
-function orderWorker(w: PoolWorker, m: WorkerOrder): void {
-  w.batches.postMessage(m);
-  Atomics.add(w.signal, 0, 1);
-  Atomics.notify(w.signal, 0);
-}
-
-function startWorker(): PoolWorker {
-  const out = new MessageChannel(), back = new MessageChannel();
-  const signal = new Int32Array(new SharedArrayBuffer(4));
-  const url = new URL('./eval-worker.js', import.meta.url);
-  const worker = new Worker(url, { workerData: { batches: out.port2, replies: back.port2, signal }, transferList: [out.port2, back.port2] });
-  const w: PoolWorker = { worker, batches: out.port1, replies: back.port1, signal };
-  worker.on('error', (e) => {
-    w.failure = e;
-    w.onFailure?.(e);
-  });
-  return w;
-}
-
-/**
- * Start `count` worker threads now, before the job is known, so that they load their modules (about 0.2 s)
- * while the main thread reads and checks the configuration; the next EvaluationPool takes them. Spare workers
- * do not keep the process alive (a command that fails before its pool exists still exits).
- */
-export function startWorkers(count: number): void {
-  while (spare.length < count) {
-    const w = startWorker();
-    w.worker.unref();
-    spare.push(w);
-  }
-}
-
-function takeWorkers(count: number): PoolWorker[] {
-  const got = spare.splice(0, count);
-  while (got.length < count) got.push(startWorker());
-  return got;
-}
-
 /**
  * A fixed pool of `size` threads that score batches of decoded points for one job: the main thread and size - 1
  * worker threads. The work of a batch is cut into tasks (each point's nominal metrics first, then contiguous
@@ -116,7 +70,6 @@ function takeWorkers(count: number): PoolWorker[] {
 export class EvaluationPool {
   private readonly workers: PoolWorker[];
   private readonly parts: Parts;
-  private next = 0;
   private readonly pending = new Map<number, (r: BatchReply) => void>();
   private failure: Error | undefined;
   private readonly tables = new Map<string, TaskTable>();
@@ -125,7 +78,6 @@ export class EvaluationPool {
     this.parts = makeEvaluatorParts(constraints, objective);
     this.workers = takeWorkers(Math.max(0, size - 1));
     for (const w of this.workers) {
-      w.worker.ref();
       w.replies.on('message', (m: BatchReply) => this.settle(m));
       w.onFailure = (e) => {
         this.failure = e;
@@ -180,7 +132,7 @@ export class EvaluationPool {
     const ctl = new Int32Array(control);
     const packed = k > 0 ? packPoints(points) : { records: points };
     const message = (id: number, done: number): BatchMessage => ({ id, points: packed, tasks: table.tasks, control, done });
-    const ids = this.workers.map(() => this.next++);
+    const ids = this.workers.map(() => nextBatch++);
     const waiting = this.workers.map((w, i) => new Promise<BatchReply>((resolve) => {
       this.pending.set(ids[i], resolve);
       orderWorker(w, message(ids[i], 1 + P + i));
@@ -199,12 +151,8 @@ export class EvaluationPool {
     return points.map((_, j) => this.parts.combine(nominal[j], this.parts.robust && nominal[j].error === undefined ? samples.slice(first[j], first[j + 1]) : []));
   }
 
+  /** Give the workers back for the next pool (threads.ts): they keep their compiled code. */
   async close(): Promise<void> {
-    for (const w of this.workers) {
-      orderWorker(w, { stop: true });
-      w.batches.close();
-      w.replies.close();
-    }
-    await Promise.all(this.workers.map(({ worker }) => worker.terminate()));
+    await releaseWorkers(this.workers);
   }
 }

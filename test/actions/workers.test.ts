@@ -34,6 +34,22 @@ describe('evaluation does not depend on the number of workers (fast-check)', () 
   });
 });
 
+describe('workers given back by a closed pool', () => {
+  it('score the next pool\'s job, a different one, as the main thread does', async () => {
+    // another job: hsr transport and other disorder draws (the thread must drop the first job's settings)
+    const other = { ...objective, model: { ...objective.model, kind: 'hsr' as const }, disorder: { ...objective.disorder!, seed: 7, samples: 5 } };
+    const first = new EvaluationPool(2, constraints, objective);
+    const rng = Rng.fromSeed(11);
+    const x = new Float64Array(ds.space.dim);
+    const points = Array.from({ length: 6 }, () => { ds.space.sampleInto(rng, x); return ds.space.decode(x); });
+    expect(await first.evaluate(points)).toEqual(points.map(local));
+    await first.close();
+    const second = new EvaluationPool(2, constraints, other);
+    expect(await second.evaluate(points)).toEqual(points.map(makeEvaluator(constraints, other)));
+    await second.close();
+  });
+});
+
 describe('workers started ahead of a job', () => {
   it('do not keep the process alive when no pool takes them (a command that fails early still exits)', () => {
     // a script file, not --input-type=module -e: workers inherit the parent's flags, and that one breaks them
@@ -44,5 +60,22 @@ describe('workers started ahead of a job', () => {
     // the workers sleep until a pool gives them a job, forever: held, the process would hit the timeout
     const out = execFileSync(process.execPath, [script], { encoding: 'utf8', timeout: 20_000 });
     expect(out.trim()).toBe('started');
+  });
+
+  it('do not keep the process alive once the pool that took them is closed', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'lumenfold-parked-'));
+    const script = join(dir, 'parked.mjs');
+    const url = (f: string) => JSON.stringify(new URL(`../../dist/${f}`, import.meta.url).href);
+    writeFileSync(script, [
+      `const { EvaluationPool } = await import(${url('actions/pool.js')});`,
+      `const { loadConfigFile } = await import(${url('config/load.js')});`,
+      `const { DEMO } = await import(${url('actions/demo.js')});`,
+      `const pool = new EvaluationPool(3, loadConfigFile(DEMO.constraints, 'constraints'), loadConfigFile(DEMO.objective, 'objective'));`,
+      `await pool.evaluate([]);`,
+      `await pool.close();`,
+      `console.log('closed');`,
+    ].join('\n') + '\n');
+    const out = execFileSync(process.execPath, [script], { encoding: 'utf8', timeout: 20_000 });
+    expect(out.trim()).toBe('closed');
   });
 });

@@ -6,6 +6,7 @@ import { progressBar } from '../progress.js';
 import { withStopSignals } from '../signals.js';
 import { InputError } from '../../errors.js';
 import { outputPath } from '../paths.js';
+import { startWorkers } from '../../actions/threads.js';
 
 interface OptimizeFlags extends CommonFlags {
   constraints?: string;
@@ -36,6 +37,9 @@ export function optimizeCommand(ctx: CliContext): Command {
     if ((f.resume || f.job) && (f.optimizer || f.budget || f.batch || f.seed)) {
       throw new InputError('--optimizer, --budget, --batch and --seed come from the job when --resume or --job is given');
     }
+    // start the worker threads first: they load their modules on the other core while this one loads the action's
+    const workers = parseWorkers(f.workers);
+    if (workers > 1) startWorkers(workers - 1);
     const { optimize } = await import('../../actions/optimize.js');
     let bar: ReturnType<typeof progressBar> | undefined;
     const s = await withStopSignals(ctx, (shouldStop) => optimize({
@@ -49,7 +53,7 @@ export function optimizeCommand(ctx: CliContext): Command {
       batch: f.batch === undefined ? undefined : parseIndex('--batch', f.batch),
       top: parseIndex('--top', f.top ?? '5'),
       seed: parseSeed(f.seed),
-      workers: parseWorkers(f.workers),
+      workers,
       out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),
       force: Boolean(f.force),
       onProgress: (p, budget) => { bar ??= progressBar(ctx, budget, 'optimize', Boolean(f.quiet)); bar.update(p); },

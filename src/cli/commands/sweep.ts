@@ -4,6 +4,7 @@ import type { CliContext } from '../context.js';
 import { parseIndex } from '../parse.js';
 import { withStopSignals } from '../signals.js';
 import { outputPath } from '../paths.js';
+import { startWorkers } from '../../actions/threads.js';
 
 export function sweepCommand(ctx: CliContext): Command {
   const cmd = new Command('sweep')
@@ -13,6 +14,9 @@ export function sweepCommand(ctx: CliContext): Command {
     .option('--plan', 'only write each point\'s job.json (run one elsewhere with: lumenfold optimize --job FILE --out ITS_FOLDER --force)');
   addCommonOptions(cmd, { out: 'sweep folder (default designs/sweeps/<name>)' });
   return cmd.action(async (file: string, f: CommonFlags & { budget?: string; plan?: boolean }) => {
+    // start the worker threads first: they load their modules on the other core while this one loads the action's
+    const workers = parseWorkers(f.workers);
+    if (workers > 1) startWorkers(workers - 1);
     const { sweep } = await import('../../actions/sweep.js');
     const r = await withStopSignals(ctx, (shouldStop) => sweep({
       shouldStop,
@@ -21,7 +25,7 @@ export function sweepCommand(ctx: CliContext): Command {
       out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),
       seed: parseSeed(f.seed),
       budget: f.budget === undefined ? undefined : parseIndex('--budget', f.budget),
-      workers: parseWorkers(f.workers),
+      workers,
       onPoint: (i, n, label, status) => { if (!f.quiet) ctx.stderr(`sweep point ${i + 1}/${n} ${label}: ${status}\n`); },
     }));
     if (f.json) ctx.stdout(JSON.stringify(r, null, 2) + '\n');
