@@ -1,7 +1,7 @@
 import { InputError } from '../errors.js';
 import { requireNumber } from '../options.js';
 import { degToRad } from '../physics/constants.js';
-import type { Site, Vec3 } from '../physics/types.js';
+import type { Site } from '../physics/types.js';
 import { Rng } from '../search/rng.js';
 import { norm3 } from '../physics/norm3.js';
 
@@ -47,30 +47,40 @@ export function makeEnsemble(model: DisorderModel, maxSites: number): DisorderEn
   return { model, maxSites, draws };
 }
 
-/** Rotate unit u by a small random tilt: add a Gaussian perpendicular component and renormalize. */
-function tilt(u: Vec3, g: ArrayLike<number>, offset: number, sigmaRad: number): Vec3 {
-  const len = norm3(u[0], u[1], u[2]);
-  const e: Vec3 = [u[0] / len, u[1] / len, u[2] / len];
-  const d = [g[offset] * sigmaRad, g[offset + 1] * sigmaRad, g[offset + 2] * sigmaRad];
-  const along = d[0] * e[0] + d[1] * e[1] + d[2] * e[2];
-  const v: Vec3 = [e[0] + d[0] - along * e[0], e[1] + d[1] - along * e[1], e[2] + d[2] - along * e[2]];
-  const n = norm3(v[0], v[1], v[2]);
-  return [v[0] / n, v[1] / n, v[2] / n];
-}
-
-/** The array as disorder sample k sees it. */
+/**
+ * The array as disorder sample k sees it. Runs for every sample of every candidate, so it makes one object and
+ * two arrays per site, with Site's keys in the order the design space decodes them (one object shape for the
+ * code that reads both). A dipole is tilted by adding a Gaussian component perpendicular to its unit direction
+ * and renormalizing.
+ */
 export function applyDisorder(sites: readonly Site[], ens: DisorderEnsemble, k: number): Site[] {
   if (sites.length > ens.maxSites) throw new InputError(`the disorder ensemble was made for ${ens.maxSites} sites, the array has ${sites.length}`);
   const g = ens.draws[k];
   const { energySigma, positionJitter, orientationJitter } = ens.model;
   const sr = degToRad(orientationJitter);
-  return sites.map((s, m) => {
-    const o = 7 * m;
-    return {
-      ...s,
+  const out: Site[] = new Array(sites.length);
+  for (let m = 0; m < sites.length; m++) {
+    const s = sites[m], o = 7 * m, p = s.position;
+    let direction = s.direction;
+    if (sr > 0) {
+      const u = s.direction, len = norm3(u[0], u[1], u[2]);
+      const e0 = u[0] / len, e1 = u[1] / len, e2 = u[2] / len;
+      const d0 = g[o + 4] * sr, d1 = g[o + 5] * sr, d2 = g[o + 6] * sr;
+      const along = d0 * e0 + d1 * e1 + d2 * e2;
+      const v0 = e0 + d0 - along * e0, v1 = e1 + d1 - along * e1, v2 = e2 + d2 - along * e2;
+      const n = norm3(v0, v1, v2);
+      direction = [v0 / n, v1 / n, v2 / n];
+    }
+    out[m] = {
+      position: [p[0] + positionJitter * g[o + 1], p[1] + positionJitter * g[o + 2], p[2] + positionJitter * g[o + 3]],
+      direction,
       energy: s.energy + energySigma * g[o],
-      position: [s.position[0] + positionJitter * g[o + 1], s.position[1] + positionJitter * g[o + 2], s.position[2] + positionJitter * g[o + 3]],
-      direction: sr > 0 ? tilt(s.direction, g, o + 4, sr) : s.direction,
+      dipole: s.dipole,
+      reorganization: s.reorganization,
+      lifetime: s.lifetime,
+      length: s.length,
+      label: s.label,
     };
-  });
+  }
+  return out;
 }
