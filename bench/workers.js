@@ -34,7 +34,8 @@ const median = (v) => [...v].sort((a, b) => a - b)[Math.floor(v.length / 2)];
 export async function runWorkersBench({ quick } = {}) {
   // the run a user makes with the demo: its objective's budget (short runs are dominated by start-up)
   const budget = quick ? 1500 : undefined;
-  const repeats = quick ? 1 : 3;
+  // five: on a shared machine one run in three or four can land on a slow phase of the other core
+  const repeats = quick ? 1 : 5;
   const dir = mkdtempSync(join(tmpdir(), 'lumenfold-bench-workers-'));
   const rows = [];
   for (let r = 0; r < repeats; r++) {
