@@ -41,7 +41,8 @@ describe('workers given back by a closed pool', () => {
     const first = new EvaluationPool(2, constraints, objective);
     const rng = Rng.fromSeed(11);
     const x = new Float64Array(ds.space.dim);
-    const points = Array.from({ length: 6 }, () => { ds.space.sampleInto(rng, x); return ds.space.decode(x); });
+    // a full batch, so that the returned worker takes some of the second pool's tasks
+    const points = Array.from({ length: 16 }, () => { ds.space.sampleInto(rng, x); return ds.space.decode(x); });
     expect(await first.evaluate(points)).toEqual(points.map(local));
     await first.close();
     const second = new EvaluationPool(2, constraints, other);
