@@ -1,6 +1,9 @@
 // Worker-pool benchmark: the demo optimization with 1 and 2 worker threads, side by side in one run, repeated
-// with the runs interleaved (other work on a shared machine slows whichever run it overlaps).
-import { execFileSync } from 'node:child_process';
+// with the runs interleaved (other work on a shared machine slows whichever run it overlaps). Two run sizes:
+// the demo objective's own budget, and three times that (a longer campaign, where the fixed costs of a run,
+// start-up and compiling the code on each thread, weigh less). Beside them, what the machine's two cores can
+// give this same work: two single-thread runs started together, against one alone.
+import { execFileSync, spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -9,19 +12,37 @@ import { fileURLToPath } from 'node:url';
 const BIN = fileURLToPath(new URL('../bin/lumenfold.js', import.meta.url));
 /** Designs of the start-up run: enough for one batch, so that it times what does not grow with the budget. */
 const STARTUP_BUDGET = 16;
+/** The demo objective's budget (objectives/demo-robust.yaml), and the longer run's. */
+const DEMO_BUDGET = 8000;
+const LONG_BUDGET = 3 * DEMO_BUDGET;
 
-/** One demo optimization; without a budget, the demo objective's own (8000 designs). */
+function runArgs(workers, budget, out) {
+  return [BIN, 'optimize', ...(budget === undefined ? [] : ['--budget', String(budget)]), '--seed', '2', '--workers', String(workers), '--out', out, '--force', '--quiet', '--json'];
+}
+
+/** One demo optimization; without a budget, the demo objective's own. */
 function timedRun(workers, budget, dir) {
   const out = join(dir, `w${workers}-b${budget ?? 'demo'}`);
   const t0 = performance.now();
-  const args = [BIN, 'optimize', ...(budget === undefined ? [] : ['--budget', String(budget)]), '--seed', '2', '--workers', String(workers), '--out', out, '--force', '--quiet', '--json'];
-  execFileSync(process.execPath, args, { cwd: dir, stdio: ['ignore', 'pipe', 'inherit'] });
+  execFileSync(process.execPath, runArgs(workers, budget, out), { cwd: dir, stdio: ['ignore', 'pipe', 'inherit'] });
   const seconds = (performance.now() - t0) / 1000;
   const best = readFileSync(join(out, 'designs', 'rank01.design.json'), 'utf8');
   return { seconds, best };
 }
 
-/** Wall time of a fixed CPU-bound loop in `n` processes at once: what the machine's cores can give in parallel. */
+/** Two single-thread demo optimizations started together: the mean of their wall times, s. */
+async function pairedRuns(budget, dir) {
+  const one = (k) => new Promise((resolve, reject) => {
+    const t0 = performance.now();
+    const child = spawn(process.execPath, runArgs(1, budget, join(dir, `pair${k}`)), { cwd: dir, stdio: ['ignore', 'ignore', 'inherit'] });
+    child.on('error', reject);
+    child.on('exit', (code) => (code === 0 ? resolve((performance.now() - t0) / 1000) : reject(new Error(`paired run exited with ${code}`))));
+  });
+  const [a, b] = await Promise.all([one(1), one(2)]);
+  return (a + b) / 2;
+}
+
+/** Wall time of a fixed CPU-bound loop in `n` processes at once: what the cores give to arithmetic alone. */
 function spin(n) {
   const code = 'let s=0;for(let i=0;i<1e8;i++)s+=Math.sqrt(i);';
   const t0 = performance.now();
@@ -30,35 +51,55 @@ function spin(n) {
 }
 
 const median = (v) => [...v].sort((a, b) => a - b)[Math.floor(v.length / 2)];
+const fixed = (v, d = 2) => v.toFixed(d);
 
-export async function runWorkersBench({ quick } = {}) {
-  // the run a user makes with the demo: its objective's budget (short runs are dominated by start-up)
-  const budget = quick ? 1500 : undefined;
-  // five: on a shared machine one run in three or four can land on a slow phase of the other core
-  const repeats = quick ? 1 : 5;
-  const dir = mkdtempSync(join(tmpdir(), 'lumenfold-bench-workers-'));
+/** Repeats of one run size: 1 and 2 workers, and (demo size only) the start-up runs and the paired runs. */
+async function measure(budget, repeats, dir, { startup, paired }) {
   const rows = [];
   for (let r = 0; r < repeats; r++) {
-    // what the two cores give at this moment (a virtual machine's second core is not always a whole core)
-    const spin1 = spin(1), spin2 = spin(2);
-    const one = timedRun(1, budget, dir), two = timedRun(2, budget, dir);
-    const start1 = timedRun(1, STARTUP_BUDGET, dir), start2 = timedRun(2, STARTUP_BUDGET, dir);
-    rows.push({ one, two, start1, start2, capacity: (2 * spin1) / spin2 });
+    const row = {};
+    if (paired) row.spin = (2 * spin(1)) / spin(2);
+    row.one = timedRun(1, budget, dir);
+    row.two = timedRun(2, budget, dir);
+    if (paired) row.pair = await pairedRuns(budget, dir);
+    if (startup) {
+      row.start1 = timedRun(1, STARTUP_BUDGET, dir).seconds;
+      row.start2 = timedRun(2, STARTUP_BUDGET, dir).seconds;
+    }
+    rows.push(row);
   }
-  console.log(`\n## worker threads: demo optimization, ${budget ?? "the demo objective's budget of 8000"} designs, whole command (${repeats} interleaved repeats, median)`);
-  console.log('workers | seconds | speed-up | start-up (budget 16), s | rest, s | speed-up of the rest | same best design');
+  return rows;
+}
+
+function report(label, budget, rows) {
   const s1 = median(rows.map((x) => x.one.seconds)), s2 = median(rows.map((x) => x.two.seconds));
-  const f1 = median(rows.map((x) => x.start1.seconds)), f2 = median(rows.map((x) => x.start2.seconds));
   const ratio = median(rows.map((x) => x.one.seconds / x.two.seconds));
-  const rest = median(rows.map((x) => (x.one.seconds - x.start1.seconds) / (x.two.seconds - x.start2.seconds)));
   const same = rows.every((x) => x.one.best === x.two.best);
-  console.log(`1 | ${s1.toFixed(2)} | 1.00 | ${f1.toFixed(2)} | ${(s1 - f1).toFixed(2)} | 1.00 | -`);
-  console.log(`2 | ${s2.toFixed(2)} | ${ratio.toFixed(2)} | ${f2.toFixed(2)} | ${(s2 - f2).toFixed(2)} | ${rest.toFixed(2)} | ${same ? 'yes' : 'NO'}`);
-  console.log(`speed-up per repeat: ${rows.map((x) => (x.one.seconds / x.two.seconds).toFixed(2)).join(', ')}`);
-  console.log(`machine's parallel capacity just before each repeat (a CPU-bound loop alone, and as two processes at once: 2 t1 / t2, the most two threads can give): ${rows.map((x) => x.capacity.toFixed(2)).join(', ')}`);
-  const share = median(rows.map((x) => x.one.seconds / x.two.seconds / x.capacity));
-  console.log(`speed-up as a share of that capacity, median: ${(100 * share).toFixed(0)}%`);
-  return { speedup: ratio, restSpeedup: rest, capacityShare: share };
+  const line = [label, budget, rows.length, fixed(s1), fixed(s2), fixed(ratio), rows.map((x) => fixed(x.one.seconds / x.two.seconds)).join(', ')];
+  if (rows[0].pair !== undefined) {
+    const capacity = median(rows.map((x) => (2 * x.one.seconds) / x.pair));
+    line.push(fixed(capacity), `${fixed((100 * ratio) / capacity, 0)}%`);
+  } else line.push('-', '-');
+  line.push(same ? 'yes' : 'NO');
+  console.log(line.join(' | '));
+  return ratio;
+}
+
+export async function runWorkersBench({ quick } = {}) {
+  const dir = mkdtempSync(join(tmpdir(), 'lumenfold-bench-workers-'));
+  // five: on a shared machine one run in three or four lands on a slow phase of the other core
+  const demoBudget = quick ? 1500 : DEMO_BUDGET;
+  const demo = await measure(demoBudget, quick ? 1 : 5, dir, { startup: true, paired: true });
+  const long = quick ? [] : await measure(LONG_BUDGET, 3, dir, { startup: false, paired: false });
+  console.log('\n## worker threads: the demo optimization with 1 and 2 threads, whole command, interleaved repeats (medians)');
+  console.log('run | designs | repeats | 1 thread, s | 2 threads, s | speed-up | speed-up per repeat | two-core capacity for this work | speed-up as a share of it | same best design');
+  const demoRatio = report('demo objective', demoBudget, demo);
+  const longRatio = long.length ? report('three times longer', LONG_BUDGET, long) : undefined;
+  console.log('two-core capacity for this work: 2 x (one single-thread run alone) / (two single-thread runs started together), the most two threads could give the demo run on this machine with no serial part at all');
+  console.log(`arithmetic alone (a square-root loop, 2 t1 / t2), per repeat: ${demo.map((x) => fixed(x.spin)).join(', ')}`);
+  const f1 = median(demo.map((x) => x.start1)), f2 = median(demo.map((x) => x.start2));
+  console.log(`start-up (a run of one batch, ${STARTUP_BUDGET} designs): ${fixed(f1)} s with 1 thread, ${fixed(f2)} s with 2; the demo run without it: speed-up ${fixed(median(demo.map((x) => (x.one.seconds - x.start1) / (x.two.seconds - x.start2))))}`);
+  return { speedup: demoRatio, longSpeedup: longRatio };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) await runWorkersBench({ quick: process.argv.includes('--quick') });
