@@ -150,6 +150,9 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
   } finally {
     await pool?.close();
   }
+  // a design file cannot hold two dyes on one anchor: such designs (infeasible, ranked only while no feasible
+  // design is known, as in a very short or early-stopped run) are left out rather than failing the run's files
+  if (ds.anchors) points = points.filter((p) => ds.feasibility(ds.decode(p)).sharedAnchors === 0);
   // never a NaN in a ranking: designs whose metrics cannot be computed are left out and counted
   const tryScore = (d: DesignPoint): ScoredDesign | undefined => {
     try {

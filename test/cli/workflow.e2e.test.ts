@@ -26,6 +26,16 @@ describe('the design workflow through the built binary', () => {
     expect(manifest.evaluations).toBe(1500);
     expect(JSON.parse(lines[0])).toHaveProperty('efficiency');
   });
+  it('a run of one batch, with no feasible design yet, still writes its files (designs with two dyes on one anchor are left out)', () => {
+    // seed 1: none of the demo's first 16 candidates meets the cheap constraints, and some put two dyes on one anchor
+    const short = join(dir, 'one-batch');
+    const r = runCli(['optimize', '--budget', '16', '--seed', '1', '--out', short, '--json']);
+    expect(r.code, r.stderr).toBe(0);
+    const designs = readdirSync(join(short, 'designs'));
+    expect(designs.length).toBeGreaterThan(0);
+    const checked = runCli(['score', ...designs.map((f) => join(short, 'designs', f)), '--json']);
+    expect(checked.code, checked.stderr).toBe(0);
+  });
   it('never overwrites a run folder without --force', () => {
     const r = runCli(['optimize', '--budget', '50', '--out', run]);
     expect(r.code).toBe(2);
