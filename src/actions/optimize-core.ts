@@ -110,11 +110,12 @@ export async function optimizeDesign(c: ConstraintSet, o: Objective, s: SearchSe
     s.onEvaluation?.({ index: index++, score: e.score, feasible: !e.error, metrics: e.metrics, error: e.error });
     return e.score;
   };
-  // yield to the event loop once per batch so that signals (stop requests) and timers are seen
+  // yield to the event loop once per batch so that signals (stop requests) and timers are seen: with threads too,
+  // since the pool reads its workers' replies without the event loop (pool.ts), its batches alone never let it run
   const yieldToLoop = () => new Promise<void>((r) => setImmediate(r));
   const evaluateBatch = async (ps: Record<string, unknown>[]) => {
     const results = pool ? await pool.evaluate(ps) : ps.map(evaluateOne!);
-    if (!pool) await yieldToLoop();
+    await yieldToLoop();
     return results.map(record);
   };
   const common = {

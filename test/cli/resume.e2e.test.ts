@@ -31,13 +31,16 @@ describe('checkpoint and resume', () => {
     expect(r.code, r.stderr).toBe(0);
   });
   for (const [k, [delay, signal]] of ([[200, 'SIGINT'], [1000, 'SIGTERM'], [2200, 'SIGINT']] as const).entries()) {
-    it(`stopped by ${signal} after ${delay} ms, exits 130 with a checkpoint, and resumes to the identical result`, async () => {
+    // the earliest stop lands in a run with 2 threads (whose batches never wait on the event loop: the stop must
+    // still be seen), the others in runs with 1; each resumes with the other number
+    const workers = k === 0 ? 2 : 1;
+    it(`stopped by ${signal} after ${delay} ms with ${workers} thread(s), exits 130 with a checkpoint, and resumes with ${3 - workers} to the identical result`, async () => {
       const folder = join(dir, `stopped${k}`);
-      const code = await runAndStop([...ARGS, '--out', folder], folder, delay, signal);
+      const code = await runAndStop([...ARGS, '--workers', String(workers), '--out', folder], folder, delay, signal);
       expect(code).toBe(130);
       expect(existsSync(join(folder, 'checkpoint.json'))).toBe(true);
       expect(existsSync(join(folder, 'designs/rank01.design.json'))).toBe(true); // the best so far
-      const again = runCli(['optimize', '--resume', folder, '--quiet', '--workers', String(1 + (k % 2))]);
+      const again = runCli(['optimize', '--resume', folder, '--quiet', '--workers', String(3 - workers)]);
       expect(again.code, again.stderr).toBe(0);
       expect(existsSync(join(folder, 'checkpoint.json'))).toBe(false);
       for (const f of ['designs/rank01.design.json', 'history.jsonl', 'ranking.csv', 'best.pdb']) {
@@ -80,6 +83,24 @@ describe('an interrupted sweep', () => {
     });
     expect(code).toBe(130);
     const again = runCli(args(out));
+    expect(again.code, again.stderr).toBe(0);
+    expect(readFileSync(join(out, 'summary.csv'), 'utf8')).toBe(readFileSync(join(dir, 'sweep-straight', 'summary.csv'), 'utf8'));
+  });
+  it('with --workers 2 also continues to the same summary as a straight run with one thread', async () => {
+    const out = join(dir, 'sweep-stopped-two');
+    const two = (o: string) => [...args(o), '--workers', '2'];
+    const code = await new Promise<number | null>((resolve) => {
+      const child = spawn(process.execPath, [BIN, ...two(out)], { stdio: 'ignore', cwd: tmpdir() });
+      const timer = setInterval(() => {
+        if (!existsSync(out) || !readdirSync(out).some((f) => /^000-/.test(f))) return;
+        clearInterval(timer);
+        setTimeout(() => child.kill('SIGINT'), 500);
+      }, 10);
+      child.on('exit', (c) => { clearInterval(timer); resolve(c); });
+    });
+    expect(code).toBe(130);
+    expect(readdirSync(out).filter((f) => /^00[01]-/.test(f)).some((p) => existsSync(join(out, p, 'checkpoint.json')))).toBe(true);
+    const again = runCli(two(out));
     expect(again.code, again.stderr).toBe(0);
     expect(readFileSync(join(out, 'summary.csv'), 'utf8')).toBe(readFileSync(join(dir, 'sweep-straight', 'summary.csv'), 'utf8'));
   });

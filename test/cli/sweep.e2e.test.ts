@@ -39,6 +39,22 @@ describe('lumenfold sweep', () => {
     expect(job.format).toBe('lumenfold.job/1');
     expect(job.objective.model.temperature).toBe(150);
   });
+  it('with --workers 2 writes the same files as with one thread', () => {
+    const one = join(dir, 'one-thread'), two = join(dir, 'two-threads');
+    const a = runCli(['sweep', sweepFile, '--budget', '120', '--out', one, '--json']);
+    const b = runCli(['sweep', sweepFile, '--budget', '120', '--out', two, '--workers', '2', '--json']);
+    expect(a.code, a.stderr).toBe(0);
+    expect(b.code, b.stderr).toBe(0);
+    expect(JSON.parse(b.stdout).points.map((p: { status: string }) => p.status)).toEqual(['done', 'done']);
+    expect(readFileSync(join(two, 'summary.csv'), 'utf8')).toBe(readFileSync(join(one, 'summary.csv'), 'utf8'));
+    const points = readdirSync(one).filter((f) => /^\d{3}-/.test(f)).sort();
+    expect(readdirSync(two).filter((f) => /^\d{3}-/.test(f)).sort()).toEqual(points);
+    for (const p of points) {
+      for (const f of ['history.jsonl', 'ranking.csv', 'best.xyz', 'best.pdb', 'designs/rank01.design.json', 'job.json']) {
+        expect(readFileSync(join(two, p, f), 'utf8'), `${p}/${f}`).toBe(readFileSync(join(one, p, f), 'utf8'));
+      }
+    }
+  });
   it('--plan writes self-contained jobs that another runner executes with optimize --job, and the sweep collects them', () => {
     const planned = join(dir, 'planned');
     const plan = runCli(['sweep', sweepFile, '--budget', '120', '--out', planned, '--plan', '--json']);
