@@ -9,15 +9,12 @@ const dir = mkdtempSync(join(tmpdir(), 'lumenfold-resume-'));
 // about 5 s of work on one core, so every stop below lands inside the run
 const ARGS = ['optimize', '--budget', '3000', '--seed', '4', '--quiet'];
 
-/**
- * Start the binary and send `signal` `delay` ms after its run log appears (the run folder exists and the stop
- * handlers are installed by then); resolve with the exit code.
- */
-function runAndStop(args: string[], folder: string, delay: number, signal: NodeJS.Signals): Promise<number | null> {
+/** Start the binary and send `signal` `delay` ms after `ready()` holds; resolve with the exit code. */
+function runAndStop(args: string[], ready: () => boolean, delay: number, signal: NodeJS.Signals): Promise<number | null> {
   return new Promise((resolve) => {
     const child = spawn(process.execPath, [BIN, ...args], { stdio: 'ignore', cwd: tmpdir() });
     const timer = setInterval(() => {
-      if (!existsSync(join(folder, 'run.log'))) return;
+      if (!ready()) return;
       clearInterval(timer);
       setTimeout(() => child.kill(signal), delay);
     }, 10);
@@ -36,7 +33,8 @@ describe('checkpoint and resume', () => {
     const workers = k === 0 ? 2 : 1;
     it(`stopped by ${signal} after ${delay} ms with ${workers} thread(s), exits 130 with a checkpoint, and resumes with ${3 - workers} to the identical result`, async () => {
       const folder = join(dir, `stopped${k}`);
-      const code = await runAndStop([...ARGS, '--workers', String(workers), '--out', folder], folder, delay, signal);
+      // the run log appears once the run folder exists and the stop handlers are installed
+      const code = await runAndStop([...ARGS, '--workers', String(workers), '--out', folder], () => existsSync(join(folder, 'run.log')), delay, signal);
       expect(code).toBe(130);
       expect(existsSync(join(folder, 'checkpoint.json'))).toBe(true);
       expect(existsSync(join(folder, 'designs/rank01.design.json'))).toBe(true); // the best so far
@@ -68,40 +66,21 @@ describe('an interrupted sweep', () => {
     '',
   ].join('\n'));
   const args = (out: string) => ['sweep', sweepFile, '--budget', '2000', '--seed', '4', '--quiet', '--out', out];
-  it('continues from the checkpoint of the point it was stopped in, to the same summary', async () => {
-    const straight = runCli(args(join(dir, 'sweep-straight')));
-    expect(straight.code, straight.stderr).toBe(0);
-    const out = join(dir, 'sweep-stopped');
-    const code = await new Promise<number | null>((resolve) => {
-      const child = spawn(process.execPath, [BIN, ...args(out)], { stdio: 'ignore', cwd: tmpdir() });
-      const timer = setInterval(() => {
-        if (!existsSync(out) || !readdirSync(out).some((f) => /^000-/.test(f))) return;
-        clearInterval(timer);
-        setTimeout(() => child.kill('SIGINT'), 500);
-      }, 10);
-      child.on('exit', (c) => { clearInterval(timer); resolve(c); });
+  for (const workers of [1, 2]) {
+    it(`stopped with ${workers} thread(s), continues from the checkpoint of the point it was stopped in to the summary of a straight run`, async () => {
+      const straight = join(dir, 'sweep-straight');
+      if (!existsSync(join(straight, 'summary.csv'))) {
+        const r = runCli(args(straight));
+        expect(r.code, r.stderr).toBe(0);
+      }
+      const out = join(dir, `sweep-stopped-${workers}`);
+      const run = [...args(out), '--workers', String(workers)];
+      const code = await runAndStop(run, () => existsSync(out) && readdirSync(out).some((f) => /^000-/.test(f)), 500, 'SIGINT');
+      expect(code).toBe(130);
+      expect(readdirSync(out).filter((f) => /^00[01]-/.test(f)).some((p) => existsSync(join(out, p, 'checkpoint.json')))).toBe(true);
+      const again = runCli(run);
+      expect(again.code, again.stderr).toBe(0);
+      expect(readFileSync(join(out, 'summary.csv'), 'utf8')).toBe(readFileSync(join(straight, 'summary.csv'), 'utf8'));
     });
-    expect(code).toBe(130);
-    const again = runCli(args(out));
-    expect(again.code, again.stderr).toBe(0);
-    expect(readFileSync(join(out, 'summary.csv'), 'utf8')).toBe(readFileSync(join(dir, 'sweep-straight', 'summary.csv'), 'utf8'));
-  });
-  it('with --workers 2 also continues to the same summary as a straight run with one thread', async () => {
-    const out = join(dir, 'sweep-stopped-two');
-    const two = (o: string) => [...args(o), '--workers', '2'];
-    const code = await new Promise<number | null>((resolve) => {
-      const child = spawn(process.execPath, [BIN, ...two(out)], { stdio: 'ignore', cwd: tmpdir() });
-      const timer = setInterval(() => {
-        if (!existsSync(out) || !readdirSync(out).some((f) => /^000-/.test(f))) return;
-        clearInterval(timer);
-        setTimeout(() => child.kill('SIGINT'), 500);
-      }, 10);
-      child.on('exit', (c) => { clearInterval(timer); resolve(c); });
-    });
-    expect(code).toBe(130);
-    expect(readdirSync(out).filter((f) => /^00[01]-/.test(f)).some((p) => existsSync(join(out, p, 'checkpoint.json')))).toBe(true);
-    const again = runCli(two(out));
-    expect(again.code, again.stderr).toBe(0);
-    expect(readFileSync(join(out, 'summary.csv'), 'utf8')).toBe(readFileSync(join(dir, 'sweep-straight', 'summary.csv'), 'utf8'));
-  });
+  }
 });
