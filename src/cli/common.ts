@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 import { InputError } from '../errors.js';
-import { parseIndex } from './parse.js';
+import { parseCount } from './parse.js';
 
 /** The options every working command shares. */
 export interface CommonFlags {
@@ -32,7 +32,7 @@ export function parseSeed(text: string | undefined): number | undefined {
 
 export function parseWorkers(text: string | undefined): number {
   if (text === undefined) return 1;
-  const n = parseIndex('--workers', text);
+  const n = parseCount('--workers', text);
   if (n > 64) throw new InputError(`--workers: at most 64, got ${n}`);
   return n;
 }

@@ -13,11 +13,16 @@ export function parseNumber(option: string, text: string, rule: 'any' | 'nonnega
   return v;
 }
 
-/** A 1-based positive integer. */
-export function parseIndex(option: string, text: string): number {
+/** A positive whole number (1, 2, ...); `what` names it in the error: a count unless said otherwise. */
+export function parseCount(option: string, text: string, what = 'a positive whole number'): number {
   const t = text.trim();
-  if (!/^\d+$/.test(t) || Number(t) < 1) throw new InputError(`${option}: '${text}' is not a site number (1, 2, ...)`);
+  if (!/^\d+$/.test(t) || Number(t) < 1) throw new InputError(`${option}: '${text}' is not ${what} (1, 2, ...)`);
   return Number(t);
+}
+
+/** A 1-based site number. */
+export function parseIndex(option: string, text: string): number {
+  return parseCount(option, text, 'a site number');
 }
 
 /** Comma-separated 1-based site numbers, returned 0-based. */
@@ -30,7 +35,7 @@ export function parseStart(text: string): Start {
   const [kind, arg] = text.split(':', 2);
   switch (kind) {
     case 'site': return { kind: 'site', site: parseIndex('--start site', arg ?? '') - 1 };
-    case 'exciton': return { kind: 'exciton', state: parseIndex('--start exciton', arg ?? '') - 1 };
+    case 'exciton': return { kind: 'exciton', state: parseCount('--start exciton', arg ?? '', 'an exciton number') - 1 };
     case 'donors':
       if (arg !== undefined) break;
       return { kind: 'donors' };
@@ -47,7 +52,7 @@ export function parseTimes(text: string): number[] {
   if (text.includes(':')) {
     const [endText, countText] = text.split(':');
     const end = parseNumber('--times end', endText, 'positive');
-    const count = parseIndex('--times count', countText);
+    const count = parseCount('--times count', countText);
     if (count < 2 || count > MAX_TIME_POINTS) throw new InputError(`--times: count must be between 2 and ${MAX_TIME_POINTS}, got ${count}`);
     return Array.from({ length: count }, (_, i) => (end * i) / (count - 1));
   }

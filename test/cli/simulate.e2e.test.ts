@@ -33,6 +33,8 @@ describe('lumenfold simulate (built binary)', () => {
     [['--trap', '3', '--trap-rate', '-1'], /--trap-rate: must not be negative/],
     [['--trap', '3', '--model', 'redfield', '--dephasing', '3'], /--dephasing belongs to --model hsr/],
     [['--trap', '3', '--start', 'site:0'], /not a site number/],
+    [['--trap', '3', '--start', 'exciton:0'], /--start exciton: '0' is not an exciton number/],
+    [['--trap', '3', '--times', '5:0'], /--times count: '0' is not a positive whole number/],
     [['--trap', '3', '--model', 'quantum'], /Allowed choices are hsr, redfield, forster/],
   ])('exits 2 with a one-line message for bad input %j', (extra, msg) => {
     const r = runCli(['simulate', '--hamiltonian', hFile, ...extra]);

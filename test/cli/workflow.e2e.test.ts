@@ -36,6 +36,12 @@ describe('the design workflow through the built binary', () => {
     const checked = runCli(['score', ...designs.map((f) => join(short, 'designs', f)), '--json']);
     expect(checked.code, checked.stderr).toBe(0);
   });
+  it.each([['--budget', '0'], ['--top', 'x'], ['--batch', '-2'], ['--workers', '0']])('refuses %s %s as a count, in words that name it', (option, value) => {
+    const r = runCli(['optimize', option, value, '--out', join(dir, 'refused')]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(new RegExp(`${option}: '${value}' is not a positive whole number`));
+    expect(existsSync(join(dir, 'refused'))).toBe(false);
+  });
   it('never overwrites a run folder without --force', () => {
     const r = runCli(['optimize', '--budget', '50', '--out', run]);
     expect(r.code).toBe(2);

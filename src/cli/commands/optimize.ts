@@ -1,7 +1,7 @@
 import { Command } from 'commander';
 import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../common.js';
 import type { CliContext } from '../context.js';
-import { parseIndex } from '../parse.js';
+import { parseCount } from '../parse.js';
 import { progressBar } from '../progress.js';
 import { withStopSignals } from '../signals.js';
 import { InputError } from '../../errors.js';
@@ -49,9 +49,9 @@ export function optimizeCommand(ctx: CliContext): Command {
       constraintsFile: f.constraints,
       objectiveFile: f.objective,
       optimizer: f.optimizer,
-      budget: f.budget === undefined ? undefined : parseIndex('--budget', f.budget),
-      batch: f.batch === undefined ? undefined : parseIndex('--batch', f.batch),
-      top: parseIndex('--top', f.top ?? '5'),
+      budget: f.budget === undefined ? undefined : parseCount('--budget', f.budget),
+      batch: f.batch === undefined ? undefined : parseCount('--batch', f.batch),
+      top: parseCount('--top', f.top ?? '5'),
       seed: parseSeed(f.seed),
       workers,
       out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),

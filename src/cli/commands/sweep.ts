@@ -1,7 +1,7 @@
 import { Command } from 'commander';
 import { addCommonOptions, parseSeed, parseWorkers, type CommonFlags } from '../common.js';
 import type { CliContext } from '../context.js';
-import { parseIndex } from '../parse.js';
+import { parseCount } from '../parse.js';
 import { withStopSignals } from '../signals.js';
 import { outputPath } from '../paths.js';
 import { startWorkers } from '../../actions/threads.js';
@@ -24,7 +24,7 @@ export function sweepCommand(ctx: CliContext): Command {
       sweepFile: file,
       out: f.out === undefined ? undefined : outputPath('--out', f.out, Boolean(f.allowOutside)),
       seed: parseSeed(f.seed),
-      budget: f.budget === undefined ? undefined : parseIndex('--budget', f.budget),
+      budget: f.budget === undefined ? undefined : parseCount('--budget', f.budget),
       workers,
       onPoint: (i, n, label, status) => { if (!f.quiet) ctx.stderr(`sweep point ${i + 1}/${n} ${label}: ${status}\n`); },
     }));
